@@ -1,0 +1,115 @@
+/**
+ * The contract between the statistics (core/), the store and run (app/), and the screens
+ * (renderer/): what goes into planning one item and what comes out. Plain data only, so a result
+ * can cross a worker thread, be stored as JSON and be sent to the renderer unchanged.
+ *
+ * Sign convention everywhere in Provision (Box–Jenkins, "ma-minus"):
+ *   y_t − μ = φ_1(y_{t−1} − μ) + … + φ_p(y_{t−p} − μ) + ε_t − θ_1 ε_{t−1} − … − θ_q ε_{t−q}.
+ */
+
+export type ServiceKind = 'cycle' | 'fill';
+
+/** One item's planning settings, as the item master (or the workspace defaults) gives them. */
+export interface ItemSettings {
+  sku: string;
+  description: string;
+  supplier: string | null;
+  unit: string;
+  casePack: number;
+  moq: number;
+  leadTimeWeeks: number;
+  leadTimeSdWeeks: number;
+  /** 0 means continuous review (s, Q); R > 0 means periodic review (R, S) every R weeks. */
+  reviewPeriodWeeks: number;
+  /** A fraction, e.g. 0.95. Null means "take the ABC class default, then the workspace default". */
+  serviceLevel: number | null;
+  serviceKind: ServiceKind;
+  unitCost: number | null;
+  /** Annual holding cost as a fraction of unit cost. */
+  holdingRate: number | null;
+  orderCost: number | null;
+  shelfLifeWeeks: number | null;
+  active: boolean;
+}
+
+/** Contiguous weekly history; weekStart[i] is the ISO date (YYYY-MM-DD) of the week's first day. */
+export interface WeeklyHistory {
+  weekStart: string[];
+  /** Demand per week; null = missing observation (empty cell, gap, or a stocked-out week). */
+  qty: (number | null)[];
+}
+
+export interface InventoryPosition {
+  onHand: number;
+  onOrder: number;
+  backorders: number;
+  asOf: string | null;
+}
+
+export interface ModelOrder {
+  p: number;
+  d: number;
+  q: number;
+}
+
+/** A review flag: our own short code, a sentence a planner understands, and what to do. */
+export interface Flag {
+  code: string;
+  severity: 'info' | 'warning' | 'critical';
+  reason: string;
+  action: string;
+}
+
+export interface ForecastPoint {
+  step: number;
+  week: string;
+  mean: number;
+  se: number;
+  lower80: number;
+  upper80: number;
+  lower95: number;
+  upper95: number;
+}
+
+/** Planner decisions the next run must respect (see app/store overrides and the audit log). */
+export interface PlanningOverrides {
+  /** Fit exactly this model instead of choosing one. */
+  forcedModel?: { order: ModelOrder; seasonalHarmonics: number; includeMean: boolean } | null;
+  /** Manual changes to the forecast over a date range (inclusive ISO dates of week starts). */
+  adjustments?: ForecastAdjustment[];
+  /** A safety stock fixed by hand, in units. */
+  safetyStock?: number | null;
+}
+
+export interface ForecastAdjustment {
+  from: string;
+  to: string;
+  kind: 'percent' | 'quantity';
+  /** Percent: +10 means ten per cent more. Quantity: units added per week (may be negative). */
+  value: number;
+  reason: string;
+}
+
+/** Workspace-wide defaults and knobs. */
+export interface WorkspaceSettings {
+  serviceLevel: number;
+  serviceKind: ServiceKind;
+  reviewPeriodWeeks: number;
+  leadTimeWeeks: number;
+  horizonWeeks: number;
+  /** 1 = Monday (ISO 8601) … 7 = Sunday. */
+  weekStartDay: number;
+  abcCutoffs: [number, number];
+  abcServiceLevels: { A: number; B: number; C: number };
+}
+
+export const DEFAULT_WORKSPACE: WorkspaceSettings = {
+  serviceLevel: 0.95,
+  serviceKind: 'cycle',
+  reviewPeriodWeeks: 1,
+  leadTimeWeeks: 2,
+  horizonWeeks: 26,
+  weekStartDay: 1,
+  abcCutoffs: [0.8, 0.95],
+  abcServiceLevels: { A: 0.98, B: 0.95, C: 0.9 },
+};
