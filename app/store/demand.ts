@@ -1,0 +1,125 @@
+/**
+ * Weekly demand (table weekly_demand): one row per item and week start, the quantity (NULL when the
+ * export left it empty), the stockout mark and the import batch that wrote it. Read back as the
+ * contiguous `WeeklyHistory` the engine takes: a week that is missing, or was stocked out (its sales
+ * understate demand), is null there.
+ */
+import type { WeeklyHistory } from '../../core/plan/types';
+import { fillWeeklyGaps, type WeekObservation } from '../../core/series/gaps';
+import type { Store } from './store';
+
+export interface DemandRow {
+  weekStart: string;
+  qty: number | null;
+  stockout: boolean;
+}
+
+/** A history plus the weeks that were marked stocked out (null in `qty`). */
+export type ItemHistory = WeeklyHistory & { stockoutWeeks: string[] };
+
+/** The latest week start in the store, or null when it holds no demand. */
+export function lastDemandWeek(store: Store): string | null {
+  const r = store.db.prepare('SELECT max(week_start) AS w FROM weekly_demand').get() as { w: string | null };
+  return r.w;
+}
+
+/** The stored rows of one SKU in week order (no gap filling). */
+export function getDemandRows(store: Store, sku: string): DemandRow[] {
+  const rows = store.db
+    .prepare(
+      'SELECT d.week_start, d.qty, d.stockout FROM weekly_demand d JOIN items i ON i.id = d.item_id WHERE i.sku = ? ORDER BY d.week_start',
+    )
+    .all(sku) as { week_start: string; qty: number | null; stockout: number }[];
+  return rows.map((r) => ({ weekStart: r.week_start, qty: r.qty, stockout: r.stockout === 1 }));
+}
+
+function toHistory(rows: DemandRow[], to: string | null): ItemHistory {
+  const obs: WeekObservation[] = rows.map((r) => ({
+    weekStart: r.weekStart,
+    qty: r.qty,
+    stockout: r.stockout,
+  }));
+  const span = to !== null && rows.length > 0 && to > rows[rows.length - 1].weekStart ? { to } : {};
+  const h = fillWeeklyGaps(obs, span);
+  return { ...h, stockoutWeeks: rows.filter((r) => r.stockout).map((r) => r.weekStart) };
+}
+
+/**
+ * Weekly history of one SKU from its first stored week to `to` (default: the store's latest week,
+ * so an item that stopped selling shows its recent silence as missing weeks). Null for an unknown SKU.
+ */
+export function getWeeklyHistory(
+  store: Store,
+  sku: string,
+  options: { to?: string | null } = {},
+): ItemHistory | null {
+  const known = store.db.prepare('SELECT id FROM items WHERE sku = ?').get(sku);
+  if (!known) return null;
+  return toHistory(getDemandRows(store, sku), options.to === undefined ? lastDemandWeek(store) : options.to);
+}
+
+/**
+ * Histories of many SKUs in one pass over the table (the planning run's bulk read); every selected
+ * item is present, an item with no demand as an empty history.
+ */
+export function getAllWeeklyHistories(
+  store: Store,
+  options: { activeOnly?: boolean; skus?: readonly string[]; to?: string | null } = {},
+): Map<string, ItemHistory> {
+  const to = options.to === undefined ? lastDemandWeek(store) : options.to;
+  const wanted = options.skus ? new Set(options.skus) : null;
+  const items = store.db
+    .prepare(`SELECT id, sku FROM items${options.activeOnly ? ' WHERE active = 1' : ''}`)
+    .all() as {
+    id: number;
+    sku: string;
+  }[];
+  const skuOf = new Map<number, string>();
+  for (const it of items) if (!wanted || wanted.has(it.sku)) skuOf.set(it.id, it.sku);
+  const rowsOf = new Map<number, DemandRow[]>();
+  for (const id of skuOf.keys()) rowsOf.set(id, []);
+  const iter = store.db
+    .prepare('SELECT item_id, week_start, qty, stockout FROM weekly_demand ORDER BY item_id, week_start')
+    .iterate() as Iterable<{ item_id: number; week_start: string; qty: number | null; stockout: number }>;
+  for (const r of iter) {
+    const list = rowsOf.get(r.item_id);
+    if (list) list.push({ weekStart: r.week_start, qty: r.qty, stockout: r.stockout === 1 });
+  }
+  const out = new Map<string, ItemHistory>();
+  for (const [id, sku] of skuOf) out.set(sku, toHistory(rowsOf.get(id) ?? [], to));
+  return out;
+}
+
+/** Writing side for the import: read what an item has, then insert or replace its weeks. */
+export interface DemandWriter {
+  existing(itemId: number): Map<string, { qty: number | null; stockout: boolean }>;
+  upsert(itemId: number, weekStart: string, qty: number | null, stockout: boolean, batchId: number): void;
+}
+
+export function demandWriter(store: Store): DemandWriter {
+  const select = store.db.prepare('SELECT week_start, qty, stockout FROM weekly_demand WHERE item_id = ?');
+  const upsert = store.db.prepare(
+    `INSERT INTO weekly_demand (item_id, week_start, qty, stockout, batch_id) VALUES (?, ?, ?, ?, ?)
+     ON CONFLICT (item_id, week_start) DO UPDATE SET qty = excluded.qty, stockout = excluded.stockout, batch_id = excluded.batch_id`,
+  );
+  return {
+    existing(itemId) {
+      const out = new Map<string, { qty: number | null; stockout: boolean }>();
+      for (const r of select.iterate(itemId) as Iterable<{
+        week_start: string;
+        qty: number | null;
+        stockout: number;
+      }>) {
+        out.set(r.week_start, { qty: r.qty, stockout: r.stockout === 1 });
+      }
+      return out;
+    },
+    upsert(itemId, weekStart, qty, stockout, batchId) {
+      upsert.run(itemId, weekStart, qty, stockout ? 1 : 0, batchId);
+    },
+  };
+}
+
+export function countDemandRows(store: Store): number {
+  return (store.db.prepare('SELECT count(*) AS n FROM weekly_demand').get() as { n: number }).n;
+}
