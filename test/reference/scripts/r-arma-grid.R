@@ -80,7 +80,7 @@ for (nm in d0_series) {
     fits[[length(fits) + 1]] <- list(
       id = sprintf("%s/(%d,0,%d)+mean", nm, p, q),
       series = nm, order = list(p = p, d = 0, q = q), includeMean = TRUE,
-      r = fit_r_arima(as.numeric(y), p, 0, q, TRUE)
+      r = fit_r_arima(as.numeric(y), p, 0, q, TRUE, polish = TRUE)
     )
   }
 }
@@ -94,7 +94,7 @@ for (f in d1_fits) {
   p <- f[[2]]
   q <- f[[3]]
   y <- as.numeric(series[[nm]]$data)
-  r <- fit_r_arima(y, p, 1, q, FALSE)
+  r <- fit_r_arima(y, p, 1, q, FALSE, polish = TRUE)
   # R treats the first value through a diffuse prior (kappa = 1e6); for reference also the fit
   # of the ARMA(p,q) without mean to the first difference, which is what "fit the d-th
   # difference" means exactly.
