@@ -1,0 +1,237 @@
+/**
+ * Reading a sales file into weekly cells. Weekly buckets (week,sku,qty[,stockout]): one row per item
+ * and week, a repeated pair is an error; a week value that is not the week's first day is taken as
+ * the week that holds it. Dated lines (date,sku,qty[,order]): summed into the week of their date;
+ * within the span of the file (an item's first week to the file's last week) a week with no line
+ * had no sales and is stored as 0.
+ *
+ * Memory grows with distinct item-weeks, not with lines: cells live in typed arrays keyed by a
+ * small integer (item index × 65536 + week index).
+ */
+import { formatIsoDate, weekStartOf } from '../../core/series/calendar';
+import type { DemandWriter } from '../store/demand';
+import type { RowContext } from './context';
+import { parseFlag } from './numbers';
+
+const WEEK_OFFSET = 10000;
+
+export interface SalesWriteStats {
+  inserted: number;
+  replaced: number;
+  changed: number;
+  zeroFilled: number;
+  changes: string[];
+}
+
+export class SalesCollector {
+  readonly dated: boolean;
+  readonly skuIndex = new Map<string, number>();
+  readonly skus: string[] = [];
+  private readonly slotOf = new Map<number, number>();
+  private n = 0;
+  private keys = new Float64Array(4096);
+  private weekDay = new Int32Array(4096);
+  private qty = new Float64Array(4096);
+  private qtyNull = new Uint8Array(4096);
+  private stockout = new Uint8Array(4096);
+  private line = new Int32Array(4096);
+  private readonly weekSet = new Set<number>();
+  minDay = Number.POSITIVE_INFINITY;
+  maxDay = Number.NEGATIVE_INFINITY;
+
+  constructor(private readonly ctx: RowContext) {
+    this.dated = ctx.has('date');
+  }
+
+  private grow(): void {
+    const size = this.keys.length * 2;
+    const g = <T extends Float64Array | Int32Array | Uint8Array>(a: T, make: (n: number) => T): T => {
+      const b = make(size);
+      b.set(a);
+      return b;
+    };
+    this.keys = g(this.keys, (k) => new Float64Array(k));
+    this.weekDay = g(this.weekDay, (k) => new Int32Array(k));
+    this.qty = g(this.qty, (k) => new Float64Array(k));
+    this.qtyNull = g(this.qtyNull, (k) => new Uint8Array(k));
+    this.stockout = g(this.stockout, (k) => new Uint8Array(k));
+    this.line = g(this.line, (k) => new Int32Array(k));
+  }
+
+  row(cells: string[], line: number): void {
+    const ctx = this.ctx;
+    const r = ctx.report;
+    const sku = ctx.cell(cells, 'sku');
+    if (sku === '') r.error(line, ctx.header('sku'), null, 'the SKU is empty');
+    const dateField = this.dated ? 'date' : 'week';
+    const day = ctx.date(cells, dateField, line);
+    if (day === null) r.error(line, ctx.header(dateField), null, `the ${dateField} is empty`);
+    let qty = ctx.number(cells, 'qty', line);
+    if (qty === null && this.dated) {
+      r.error(line, ctx.header('qty'), null, 'the quantity is empty');
+      qty = undefined;
+    }
+    let out = false;
+    if (ctx.has('stockout')) {
+      const text = ctx.cell(cells, 'stockout');
+      const f = parseFlag(text);
+      if (f === null)
+        r.error(line, ctx.header('stockout'), text, 'is not a stockout mark (use 1/0, yes/no or true/false)');
+      else out = f;
+    }
+    if (sku === '' || day === null || day === undefined || qty === undefined) return;
+    if (qty !== null && qty < 0) {
+      r.warn(
+        'negative',
+        `line ${line}`,
+        (n, ex) => `${n} rows have negative quantities (returns), kept as net demand (${ex})`,
+      );
+    }
+    if (qty === null) {
+      r.warn(
+        'emptyqty',
+        `line ${line}`,
+        (n, ex) => `${n} rows have an empty quantity, stored as missing weeks (${ex})`,
+      );
+    }
+    const ws = weekStartOf(day, ctx.weekStartDay);
+    if (!this.dated && ws !== day) {
+      r.warn(
+        'weekday',
+        `${formatIsoDate(day)} → ${formatIsoDate(ws)}`,
+        (n, ex) =>
+          `${n} week values are not on the week's first day; each was taken as the week that holds it (${ex})`,
+      );
+    }
+    if (day < this.minDay) this.minDay = day;
+    if (day > this.maxDay) this.maxDay = day;
+    let idx = this.skuIndex.get(sku);
+    if (idx === undefined) {
+      idx = this.skus.length;
+      this.skus.push(sku);
+      this.skuIndex.set(sku, idx);
+    }
+    const wk = Math.floor(ws / 7) + WEEK_OFFSET;
+    this.weekSet.add(ws);
+    const key = idx * 65536 + wk;
+    const slot = this.slotOf.get(key);
+    if (slot !== undefined) {
+      if (!this.dated) {
+        r.error(
+          line,
+          ctx.header('week'),
+          ctx.cell(cells, 'week'),
+          `repeats SKU ${sku}, week ${formatIsoDate(ws)} (first on line ${this.line[slot]}); a weekly file lists each item and week once`,
+        );
+        return;
+      }
+      this.qty[slot] += qty ?? 0;
+      if (out) this.stockout[slot] = 1;
+      return;
+    }
+    if (this.n === this.keys.length) this.grow();
+    const s = this.n++;
+    this.slotOf.set(key, s);
+    this.keys[s] = key;
+    this.weekDay[s] = ws;
+    this.qty[s] = qty ?? 0;
+    this.qtyNull[s] = qty === null ? 1 : 0;
+    this.stockout[s] = out ? 1 : 0;
+    this.line[s] = line;
+  }
+
+  /** End-of-file remarks (partial edge weeks of dated lines). */
+  finish(): void {
+    if (!this.dated || this.n === 0) return;
+    const wsd = this.ctx.weekStartDay;
+    const lastWeek = weekStartOf(this.maxDay, wsd);
+    if (this.maxDay !== lastWeek + 6) {
+      this.ctx.report.warn(
+        'partial-last',
+        null,
+        () =>
+          `the file ends on ${formatIsoDate(this.maxDay)}, before the end of the week of ${formatIsoDate(lastWeek)}; that week holds only part of its sales`,
+      );
+    }
+    const firstWeek = weekStartOf(this.minDay, wsd);
+    if (this.minDay !== firstWeek) {
+      this.ctx.report.warn(
+        'partial-first',
+        null,
+        () =>
+          `the file starts on ${formatIsoDate(this.minDay)}, after the start of the week of ${formatIsoDate(firstWeek)}; that week holds only part of its sales`,
+      );
+    }
+  }
+
+  get rowsCells(): number {
+    return this.n;
+  }
+
+  /** Weeks the import covers: distinct weeks (buckets), or the whole span first–last week (dated lines). */
+  get weekCount(): number {
+    if (this.dated && this.n > 0) {
+      const w = this.ctx.weekStartDay;
+      return (weekStartOf(this.maxDay, w) - weekStartOf(this.minDay, w)) / 7 + 1;
+    }
+    return this.weekSet.size;
+  }
+
+  /** Write every cell through the store's demand writer (inside the import's transaction). */
+  write(
+    ids: Map<string, number>,
+    known: Set<string>,
+    writer: DemandWriter,
+    batchId: number,
+  ): SalesWriteStats {
+    const order = new Uint32Array(this.n);
+    for (let i = 0; i < this.n; i++) order[i] = i;
+    const keys = this.keys;
+    order.sort((a, b) => keys[a] - keys[b]);
+    const stats: SalesWriteStats = { inserted: 0, replaced: 0, changed: 0, zeroFilled: 0, changes: [] };
+    const lastWeek = this.dated ? weekStartOf(this.maxDay, this.ctx.weekStartDay) : 0;
+    let i = 0;
+    while (i < this.n) {
+      const skuIdx = Math.floor(keys[order[i]] / 65536);
+      const sku = this.skus[skuIdx];
+      const itemId = ids.get(sku)!;
+      const existing = known.has(sku) ? writer.existing(itemId) : null;
+      const put = (week: number, qty: number | null, out: boolean) => {
+        const ws = formatIsoDate(week);
+        const prev = existing?.get(ws);
+        if (prev) {
+          stats.replaced++;
+          if (prev.qty !== qty || prev.stockout !== out) {
+            stats.changed++;
+            if (stats.changes.length < 200) {
+              stats.changes.push(
+                `${sku} ${ws}: ${prev.qty ?? 'empty'}${prev.stockout ? ' (stockout)' : ''} → ${qty ?? 'empty'}${out ? ' (stockout)' : ''}`,
+              );
+            }
+          }
+        } else stats.inserted++;
+        writer.upsert(itemId, ws, qty, out, batchId);
+      };
+      let nextWeek = this.weekDay[order[i]];
+      while (i < this.n && Math.floor(keys[order[i]] / 65536) === skuIdx) {
+        const s = order[i];
+        if (this.dated) {
+          for (let w = nextWeek; w < this.weekDay[s]; w += 7) {
+            put(w, 0, false);
+            stats.zeroFilled++;
+          }
+          nextWeek = this.weekDay[s] + 7;
+        }
+        put(this.weekDay[s], this.qtyNull[s] ? null : this.qty[s], this.stockout[s] === 1);
+        i++;
+      }
+      if (this.dated) {
+        for (let w = nextWeek; w <= lastWeek; w += 7) {
+          put(w, 0, false);
+          stats.zeroFilled++;
+        }
+      }
+    }
+    return stats;
+  }
+}
