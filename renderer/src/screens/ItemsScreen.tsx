@@ -1,0 +1,60 @@
+/** The items overview: a filter, the virtualized grid, and the opened item beside it. */
+import { useDeferredValue, useMemo, useState } from 'react';
+import { useLoad } from '../api-context';
+import { ItemGrid } from '../components/ItemGrid';
+import { navigate } from '../route';
+import { ItemDetailPanel } from './ItemDetailPanel';
+
+export function ItemsScreen({ sku }: { sku: string | null }) {
+  const items = useLoad((api) => api.listItems(), []);
+  const [filter, setFilter] = useState('');
+  const deferred = useDeferredValue(filter);
+  const rows = useMemo(() => {
+    const all = items.data ?? [];
+    const f = deferred.trim().toLowerCase();
+    if (f === '') return all;
+    return all.filter(
+      (r) =>
+        r.sku.toLowerCase().includes(f) ||
+        r.description.toLowerCase().includes(f) ||
+        (r.supplier ?? '').toLowerCase().includes(f),
+    );
+  }, [items.data, deferred]);
+
+  return (
+    <div className="split">
+      <section className="list-pane" aria-label="Items">
+        <div className="toolbar">
+          <h1>Items</h1>
+          <label className="filter">
+            <span className="visually-hidden">Filter items</span>
+            <input
+              type="search"
+              placeholder="Filter by SKU, description or supplier"
+              value={filter}
+              onChange={(e) => setFilter(e.target.value)}
+            />
+          </label>
+          <span className="muted" data-testid="item-count">
+            {items.data ? `${rows.length} of ${items.data.length}` : items.loading ? 'loading…' : ''}
+          </span>
+        </div>
+        {items.error && (
+          <p className="error" role="alert">
+            {items.error}
+          </p>
+        )}
+        {items.data && (
+          <ItemGrid rows={rows} selected={sku} onOpen={(s) => navigate('items', s)} label="Items overview" />
+        )}
+      </section>
+      <section className="detail-pane" aria-label="Item detail">
+        {sku ? (
+          <ItemDetailPanel sku={sku} />
+        ) : (
+          <p className="muted pad">Open an item to see its forecast and order.</p>
+        )}
+      </section>
+    </div>
+  );
+}
