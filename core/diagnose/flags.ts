@@ -127,7 +127,7 @@ export function makeFlag(code: FlagCode, facts: Record<string, number | string> 
       return {
         code,
         severity: 'warning',
-        reason: `Over the last ${f.weeks} weeks the model's errors were ${pct(Number(f.ratio) - 1)} larger than simply repeating last week's demand (MASE ${num(Number(f.ratio), 2)}).`,
+        reason: `Over the last ${f.weeks} weeks the model's errors were ${pct(Number(f.ratio) - 1)} larger than simply repeating last week's demand (error ratio ${num(Number(f.ratio), 2)}).`,
         action: 'Review the item; a simpler model or a manual forecast may serve better.',
       };
     case 'sparse-demand':

@@ -1,0 +1,210 @@
+import type { Flag } from '../plan/types';
+import { polynomialRootModuli } from '../select/engine';
+import { forecastChoice } from '../select/forecastChoice';
+import type { ModelChoice } from '../select/modelChoice';
+import { chiSquareUpperTail } from './chiSquare';
+import { makeFlag } from './flags';
+import { type JarqueBeraResult, jarqueBera } from './jarqueBera';
+import { type LevelShiftResult, levelShift } from './levelShift';
+import { type LjungBoxResult, ljungBox, ljungBoxLags } from './ljungBox';
+
+/**
+ * The diagnostic record of one fitted item and the review flags that follow from it. Thresholds
+ * (stated; common practice unless cited):
+ *   Ljung–Box p < 0.01 at min(10, n/5) lags (min(104, n/5) when annual terms are in), df − (p + q);
+ *   any AR or MA root modulus < 1.05; Jarque–Bera p < 0.001; |standardised residual| > 4 (outlier
+ *   weeks, listed by date); a level shift over the last 12 weeks (levelShift.ts); non-convergence;
+ *   fewer than 52 weeks of history; a forecast mean below zero within the horizon;
+ *   over the last 26 one-step innovations: Σ z² against χ²_m (upper tail p < 0.01: intervals too
+ *   narrow) and the model's mean absolute one-step error against that of the naive forecast
+ *   y_{t−1} (ratio > 1.1: loses to naive).
+ */
+export interface Diagnostics {
+  ljungBox: LjungBoxResult | null;
+  jarqueBera: JarqueBeraResult | null;
+  roots: { ar: number[]; ma: number[]; minAr: number | null; minMa: number | null };
+  outliers: { week: string; z: number }[];
+  levelShift: LevelShiftResult | null;
+  converged: boolean | null;
+  historyWeeks: number;
+  observedWeeks: number;
+  negativeForecast: { step: number; min: number } | null;
+  recent: {
+    weeks: number;
+    /** √(mean z²) over the recent innovations: 1 when the model's σ is right. */
+    errorRatio: number;
+    pValue: number;
+    /** Mean |model one-step error| / mean |naive one-step error| over the same weeks. */
+    naiveRatio: number;
+  } | null;
+  demand: { demandClass: string; adi: number; cv2: number };
+}
+
+export const ROOT_WARNING = 1.05;
+export const OUTLIER_Z = 4;
+export const RECENT_WEEKS = 26;
+export const SHORT_HISTORY_WEEKS = 52;
+/** The model must be clearly worse (10% larger mean absolute error) to be flagged: a random walk model
+ * and the naive forecast are the same model up to a drift, and should not flag by chance. */
+export const LOSES_TO_NAIVE = 1.1;
+
+export function diagnoseChoice(
+  choice: ModelChoice,
+  weekStart: string[],
+  options: { horizon?: number; y?: ArrayLike<number> } = {},
+): { diagnostics: Diagnostics; flags: Flag[] } {
+  const flags: Flag[] = [];
+  const fit = choice.fit;
+  const n = choice.residuals.length;
+  // Actual demand is fitted + residual wherever both exist.
+  const y = options.y ?? choice.fitted.map((f, i) => f + choice.residuals[i]);
+
+  // Standardised one-step errors on the scale the model measures them.
+  const z = new Float64Array(n).fill(Number.NaN);
+  let sigma = Number.NaN;
+  if (choice.kind === 'arma' && fit) {
+    const sz = fit.standardizedResiduals;
+    const off = n - sz.length;
+    for (let i = 0; i < sz.length; i++) if (i + off >= 0) z[i + off] = sz[i];
+  } else {
+    sigma =
+      choice.kind === 'intermittent' && choice.intermittent
+        ? Math.sqrt(choice.intermittent.errorVariance)
+        : (choice.fallbackLevel?.sd ?? (fit ? Math.sqrt(fit.sigma2) : Number.NaN));
+    if (sigma > 0) for (let i = 0; i < n; i++) z[i] = choice.residuals[i] / sigma;
+  }
+
+  const pq = choice.order.p + choice.order.q;
+  let lb: LjungBoxResult | null = null;
+  let jb: JarqueBeraResult | null = null;
+  if (choice.kind === 'arma' && fit) {
+    const innov = fit.residuals;
+    let m = 0;
+    for (let i = 0; i < innov.length; i++) if (Number.isFinite(innov[i])) m++;
+    if (m >= 8) {
+      lb = ljungBox(innov, ljungBoxLags(m, choice.seasonalHarmonics > 0 ? 52 : 0), pq);
+      jb = jarqueBera(innov);
+      if (lb.pValue < 0.01)
+        flags.push(makeFlag('residual-autocorrelation', { q: lb.statistic, lags: lb.lags, p: lb.pValue }));
+      if (jb.pValue < 0.001)
+        flags.push(makeFlag('non-normal-residuals', { jb: jb.statistic, p: jb.pValue, skew: jb.skewness }));
+    }
+  }
+
+  const arRoots = fit && choice.kind === 'arma' ? polynomialRootModuli(fit.ar) : [];
+  const maRoots = fit && choice.kind === 'arma' ? polynomialRootModuli(fit.ma) : [];
+  const minAr = arRoots.length ? arRoots[0] : null;
+  const minMa = maRoots.length ? maRoots[0] : null;
+  if (minAr !== null && minAr < ROOT_WARNING) flags.push(makeFlag('near-unit-root', { modulus: minAr }));
+  if (minMa !== null && minMa < ROOT_WARNING) flags.push(makeFlag('near-noninvertible', { modulus: minMa }));
+
+  const outliers: { week: string; z: number }[] = [];
+  if (choice.kind !== 'intermittent') {
+    for (let i = 0; i < n; i++) {
+      if (Number.isFinite(z[i]) && Math.abs(z[i]) > OUTLIER_Z)
+        outliers.push({ week: weekStart[i] ?? `#${i}`, z: z[i] });
+    }
+    if (outliers.length > 0) {
+      const shown = outliers.slice(0, 5).map((o) => o.week);
+      const more = outliers.length > 5 ? ` and ${outliers.length - 5} more` : '';
+      flags.push(makeFlag('outlier-weeks', { count: outliers.length, weeks: shown.join(', ') + more }));
+    }
+  }
+
+  let shift: LevelShiftResult | null = null;
+  if (choice.kind === 'arma') {
+    shift = levelShift(y, choice.fitted, z, 12);
+    if (shift.detected)
+      flags.push(makeFlag('level-shift', { weeks: shift.weeks, gap: shift.relativeGap, z: shift.z }));
+  }
+
+  const converged = fit && choice.kind === 'arma' ? fit.converged : null;
+  if (converged === false) flags.push(makeFlag('not-converged', { order: orderText(choice) }));
+  if (choice.historyWeeks < SHORT_HISTORY_WEEKS)
+    flags.push(makeFlag('short-history', { weeks: choice.historyWeeks }));
+
+  if (choice.kind === 'fallback') {
+    const basis = choice.fallbackLevel?.basis ?? (fit?.fallback === 'last-value' ? 'last value' : 'mean');
+    const engineFlags = fit?.flags ?? [];
+    if (engineFlags.includes('constant') || engineFlags.includes('all-zero')) {
+      const v = choice.fitted.find((f) => Number.isFinite(f)) ?? 0;
+      flags.push(makeFlag('constant', { value: v }));
+    } else if (choice.observedWeeks < 3 || engineFlags.includes('too-short')) {
+      flags.push(makeFlag('too-short', { weeks: choice.observedWeeks, basis }));
+    } else {
+      flags.push(makeFlag('fallback', { basis }));
+    }
+  }
+  if (choice.kind === 'intermittent') {
+    flags.push(
+      makeFlag('sparse-demand', {
+        demandClass: choice.demandClass,
+        adi: choice.demand.adi,
+        cv2: choice.demand.cv2,
+      }),
+    );
+  }
+  if (choice.kind === 'arma' && choice.selection.reason.includes('no sound candidate')) {
+    flags.push(makeFlag('unsound-model', { order: orderText(choice) }));
+  }
+  if (choice.seasonalHarmonics > 0) flags.push(makeFlag('seasonal-terms', { k: choice.seasonalHarmonics }));
+
+  const horizon = options.horizon ?? 26;
+  let negative: Diagnostics['negativeForecast'] = null;
+  if (horizon > 0) {
+    const f = forecastChoice(choice, horizon);
+    for (let h = 0; h < horizon; h++) {
+      if (f.mean[h] < 0 && (!negative || f.mean[h] < negative.min))
+        negative = { step: h + 1, min: f.mean[h] };
+    }
+    if (negative) flags.push(makeFlag('negative-forecast', negative));
+  }
+
+  // The cheap checks from the last 26 one-step innovations (no refit).
+  let recent: Diagnostics['recent'] = null;
+  {
+    let m = 0;
+    let z2 = 0;
+    let modelAbs = 0;
+    let naiveAbs = 0;
+    for (let i = n - 1; i >= 1 && m < RECENT_WEEKS; i--) {
+      const e = choice.residuals[i];
+      const naive = y[i] - y[i - 1];
+      if (!Number.isFinite(z[i]) || !Number.isFinite(e) || !Number.isFinite(naive)) continue;
+      m++;
+      z2 += z[i] * z[i];
+      modelAbs += Math.abs(e);
+      naiveAbs += Math.abs(naive);
+    }
+    if (m >= 8) {
+      const pValue = chiSquareUpperTail(z2, m);
+      const errorRatio = Math.sqrt(z2 / m);
+      const naiveRatio = naiveAbs > 0 ? modelAbs / naiveAbs : modelAbs > 0 ? Number.POSITIVE_INFINITY : 1;
+      recent = { weeks: m, errorRatio, pValue, naiveRatio: Number.isFinite(naiveRatio) ? naiveRatio : 1e9 };
+      if (pValue < 0.01) flags.push(makeFlag('intervals-too-narrow', { weeks: m, ratio: errorRatio }));
+      if (naiveRatio > LOSES_TO_NAIVE && choice.kind !== 'intermittent')
+        flags.push(makeFlag('loses-to-naive', { weeks: m, ratio: naiveRatio }));
+    }
+  }
+
+  return {
+    diagnostics: {
+      ljungBox: lb,
+      jarqueBera: jb,
+      roots: { ar: arRoots, ma: maRoots, minAr, minMa },
+      outliers,
+      levelShift: shift,
+      converged,
+      historyWeeks: choice.historyWeeks,
+      observedWeeks: choice.observedWeeks,
+      negativeForecast: negative,
+      recent,
+      demand: { demandClass: choice.demandClass, adi: choice.demand.adi, cv2: choice.demand.cv2 },
+    },
+    flags,
+  };
+}
+
+function orderText(c: ModelChoice): string {
+  return `${c.order.p},${c.order.d},${c.order.q}`;
+}

@@ -1,0 +1,456 @@
+import type { ArmaFit } from '../arma/types';
+import { classifyDemand, type DemandProfile } from '../intermittent/demandClass';
+import { fitSba } from '../intermittent/sba';
+import type { ModelOrder } from '../plan/types';
+import { fitArma, minRootModulus } from './engine';
+import { fourierColumns, weekTimes } from './fourier';
+import { chooseDifferencing, type KpssResult } from './kpss';
+import type { Candidate, ModelChoice } from './modelChoice';
+import { SCREEN_LEVEL, seasonalScreen } from './seasonalScreen';
+
+/**
+ * Automatic model choice for one item's weekly demand.
+ * 1. Sparse demand (ADI ≥ 1.32, Syntetos, Boylan & Croston 2005) with no negative values → SBA.
+ * 2. d ≤ 2 by repeated KPSS tests at 5% (Kwiatkowski et al. 1992); with d = 1 a drift is a candidate.
+ * 3. p, q ≤ 5 by AICc (Hurvich & Tsai 1989), either a stepwise walk — start from (2,2), (0,0),
+ *    (1,0), (0,1) and move one step in p or in q (or toggle the drift when d = 1) while the best
+ *    model changes, the idea published by Hyndman & Khandakar (2008) — or the full grid.
+ * 4. With at least 104 weeks of history and a significant LM screen for an annual cycle, Fourier
+ *    terms K = 1…4 (period 365.25/7) are fitted jointly with the ARMA errors and K chosen by AICc;
+ *    the stepwise walk then continues with that K.
+ * Rules: ΔAICc < 0.1 goes to the model with fewer parameters; a candidate that did not converge,
+ * fell back, or has an AR or MA root of modulus below 1.01 is never chosen over a sound one, and
+ * its record says why it was passed over. Every candidate is recorded with its AICc.
+ */
+export interface ChooseOptions {
+  search?: 'stepwise' | 'grid';
+  forced?: { order: ModelOrder; seasonalHarmonics: number; includeMean: boolean } | null;
+  /** Highest p and q considered (default 5). */
+  maxOrder?: number;
+  /** Highest number of harmonic pairs (default 4). */
+  maxHarmonics?: number;
+  /** Skip the seasonal step entirely. */
+  seasonal?: boolean;
+}
+
+export const NEAR_TIE = 0.1;
+export const MIN_ROOT_MODULUS = 1.01;
+export const SEASONAL_MIN_WEEKS = 104;
+const MAX_STEPWISE_FITS = 60;
+
+interface Entry {
+  p: number;
+  q: number;
+  k: number;
+  mean: boolean;
+  fit: ArmaFit | null;
+  aicc: number;
+  nparams: number;
+  /** null when sound; otherwise why the candidate may not win over a sound one. */
+  unsound: string | null;
+}
+
+export function chooseModel(
+  y: ArrayLike<number>,
+  weekStart: string[],
+  options: ChooseOptions = {},
+): ModelChoice {
+  const n = y.length;
+  if (weekStart.length !== n) {
+    throw new RangeError(`chooseModel: ${n} values but ${weekStart.length} week dates; they must match`);
+  }
+  const series = new Float64Array(n);
+  let nonNegative = true;
+  for (let i = 0; i < n; i++) {
+    const v = y[i];
+    series[i] = typeof v === 'number' && Number.isFinite(v) ? v : Number.NaN;
+    if (series[i] < 0) nonNegative = false;
+  }
+  const demand = classifyDemand(series);
+  const base = {
+    demandClass: demand.demandClass,
+    demand,
+    lastWeekStart: n > 0 ? weekStart[n - 1] : '',
+    historyWeeks: n,
+    observedWeeks: demand.observedWeeks,
+  };
+
+  if (options.forced) return forcedChoice(series, weekStart, options.forced, base);
+
+  if (demand.observedWeeks < 3) return fallbackChoice(series, base, [], 'fewer than 3 observed weeks');
+
+  const sparse = demand.demandClass === 'intermittent' || demand.demandClass === 'lumpy';
+  if (sparse && nonNegative && demand.demandWeeks > 0) {
+    const sba = fitSba(series);
+    const fitted = sba.fitted.slice();
+    return {
+      ...base,
+      kind: 'intermittent',
+      order: { p: 0, d: 0, q: 0 },
+      seasonalHarmonics: 0,
+      includeMean: false,
+      fit: null,
+      intermittent: sba,
+      fallbackLevel: null,
+      selection: {
+        search: 'none',
+        candidates: [],
+        reason: `demand is ${demand.demandClass} (ADI ${demand.adi.toFixed(2)} ≥ 1.32, CV² ${demand.cv2.toFixed(2)}): SBA with α = ${sba.alpha}, chosen by in-sample one-step error`,
+      },
+      differencing: [],
+      fitted,
+      residuals: residualsOf(series, fitted),
+      seasonalScreen: null,
+    };
+  }
+
+  if (isConstant(series)) {
+    // Nothing to choose between: the engine's constant-series fallback, fitted once.
+    let fit: ArmaFit | null = null;
+    try {
+      fit = fitArma(series, { p: 0, d: 0, q: 0, includeMean: true });
+    } catch {
+      fit = null;
+    }
+    if (!fit) return fallbackChoice(series, base, [], 'every observed week has the same value');
+    const fitted = Array.from(fit.fitted);
+    return {
+      ...base,
+      kind: fit.fallback ? 'fallback' : 'arma',
+      order: { p: 0, d: 0, q: 0 },
+      seasonalHarmonics: 0,
+      includeMean: true,
+      fit,
+      intermittent: null,
+      fallbackLevel: null,
+      selection: {
+        search: 'none',
+        candidates: [
+          {
+            order: { p: 0, d: 0, q: 0 },
+            seasonalHarmonics: 0,
+            includeMean: true,
+            aicc: Number.isFinite(fit.aicc) ? fit.aicc : null,
+          },
+        ],
+        reason: 'every observed week has the same value: no model to choose',
+      },
+      differencing: [],
+      fitted,
+      residuals: residualsOf(series, fitted),
+      seasonalScreen: null,
+    };
+  }
+
+  const { d, tests } = chooseDifferencing(series, 2);
+  const maxOrder = options.maxOrder ?? 5;
+  const maxK = options.maxHarmonics ?? 4;
+  const times = weekTimes(weekStart);
+  const allFourier = n >= SEASONAL_MIN_WEEKS && options.seasonal !== false ? fourierColumns(times, maxK) : [];
+  const nEff = demand.observedWeeks - d;
+  const maxParams = Math.max(2, Math.floor(nEff / 3));
+
+  const cache = new Map<string, Entry>();
+  const order: Entry[] = [];
+  const fitOne = (p: number, q: number, k: number, mean: boolean): Entry | null => {
+    if (p < 0 || q < 0 || p > maxOrder || q > maxOrder) return null;
+    const nparams = p + q + (mean ? 1 : 0) + 2 * k + 1;
+    if (nparams > maxParams && !(p === 0 && q === 0 && k === 0)) return null;
+    const key = `${p},${q},${k},${mean ? 1 : 0}`;
+    const hit = cache.get(key);
+    if (hit) return hit;
+    let fit: ArmaFit | null = null;
+    try {
+      fit = fitArma(series, {
+        p,
+        d,
+        q,
+        includeMean: mean,
+        xreg: k > 0 ? allFourier.slice(0, 2 * k) : undefined,
+      });
+    } catch {
+      fit = null;
+    }
+    const entry: Entry = {
+      p,
+      q,
+      k,
+      mean,
+      fit,
+      aicc: fit && Number.isFinite(fit.aicc) ? fit.aicc : Number.POSITIVE_INFINITY,
+      nparams: fit ? fit.nparams : nparams,
+      unsound: soundness(fit),
+    };
+    cache.set(key, entry);
+    order.push(entry);
+    return entry;
+  };
+
+  const meanChoices = d === 0 ? [true] : d === 1 ? [true, false] : [false];
+  const search = options.search ?? 'stepwise';
+  const walk = (k: number, centre: Entry | null): void => {
+    if (search === 'grid') {
+      for (const mean of meanChoices)
+        for (let p = 0; p <= maxOrder; p++) for (let q = 0; q <= maxOrder; q++) fitOne(p, q, k, mean);
+      return;
+    }
+    if (!centre) {
+      for (const [p, q] of [
+        [2, 2],
+        [0, 0],
+        [1, 0],
+        [0, 1],
+      ])
+        fitOne(p, q, k, meanChoices[0]);
+    }
+    let current = pick(order.filter((e) => e.k === k)) ?? centre;
+    let budget = MAX_STEPWISE_FITS;
+    while (current && budget > 0) {
+      const before = order.length;
+      const { p, q, mean } = current;
+      fitOne(p + 1, q, k, mean);
+      fitOne(p - 1, q, k, mean);
+      fitOne(p, q + 1, k, mean);
+      fitOne(p, q - 1, k, mean);
+      if (d === 1) fitOne(p, q, k, !mean);
+      budget -= order.length - before;
+      const next = pick(order.filter((e) => e.k === k));
+      if (!next || next === current) break;
+      current = next;
+    }
+  };
+
+  walk(0, null);
+  let chosen = pick(order);
+  let screen: ModelChoice['seasonalScreen'] = null;
+  if (chosen?.fit && allFourier.length > 0) {
+    const res = chosen.fit.residuals;
+    const offset = n - res.length;
+    screen = seasonalScreen(res, offset >= 0 ? times.subarray(offset) : times);
+    if (screen.pValue < SCREEN_LEVEL) {
+      const c = chosen;
+      for (let k = 1; k <= maxK; k++) fitOne(c.p, c.q, k, c.mean);
+      const seasonalBest = pick(order);
+      if (seasonalBest && seasonalBest.k > 0) walk(seasonalBest.k, seasonalBest);
+      chosen = pick(order);
+    }
+  } else if (n >= SEASONAL_MIN_WEEKS && options.seasonal !== false) {
+    screen = { tried: false, statistic: 0, df: 0, pValue: 1 };
+  }
+
+  if (!chosen?.fit) {
+    return fallbackChoice(series, base, tests, 'no candidate model could be fitted', recordOf(order, null));
+  }
+  const fit = chosen.fit;
+  const fitted = Array.from(fit.fitted);
+  const kind = fit.fallback ? 'fallback' : 'arma';
+  return {
+    ...base,
+    kind,
+    order: { p: chosen.p, d, q: chosen.q },
+    seasonalHarmonics: chosen.k,
+    includeMean: chosen.mean,
+    fit,
+    intermittent: null,
+    fallbackLevel: null,
+    selection: {
+      search,
+      candidates: recordOf(order, chosen),
+      reason: reasonOf(chosen, d, tests, order.length, search, screen),
+    },
+    differencing: tests,
+    fitted,
+    residuals: residualsOf(series, fitted),
+    seasonalScreen: screen,
+  };
+}
+
+/** Why a fit may not be chosen over a sound one, or null when it is sound. */
+function soundness(fit: ArmaFit | null): string | null {
+  if (!fit) return 'the fit failed';
+  if (fit.fallback) return `the fit fell back to the ${fit.fallback}`;
+  if (!Number.isFinite(fit.aicc)) return 'no finite AICc';
+  if (!fit.converged) return 'the estimation did not converge';
+  const ar = minRootModulus(fit.ar);
+  if (ar < MIN_ROOT_MODULUS) return `AR root modulus ${ar.toFixed(4)} < ${MIN_ROOT_MODULUS}`;
+  const ma = minRootModulus(fit.ma);
+  if (ma < MIN_ROOT_MODULUS) return `MA root modulus ${ma.toFixed(4)} < ${MIN_ROOT_MODULUS}`;
+  return null;
+}
+
+/**
+ * The winner among entries: the sound candidate with the lowest AICc, except that any sound candidate
+ * within ΔAICc < 0.1 of it with fewer parameters wins (then the lower AICc). Unsound candidates win
+ * only when no candidate is sound.
+ */
+function pick(entries: Entry[]): Entry | null {
+  const sound = entries.filter((e) => e.unsound === null && Number.isFinite(e.aicc));
+  const pool = sound.length ? sound : entries.filter((e) => e.fit && Number.isFinite(e.aicc));
+  if (pool.length === 0) {
+    // Nothing fitted properly (a constant series, say): the simplest fitted candidate.
+    let simplest: Entry | null = null;
+    for (const e of entries) if (e.fit && (!simplest || e.nparams < simplest.nparams)) simplest = e;
+    return simplest;
+  }
+  let best = pool[0];
+  for (const e of pool) if (e.aicc < best.aicc) best = e;
+  let winner = best;
+  for (const e of pool) {
+    if (e.aicc - best.aicc >= NEAR_TIE) continue;
+    if (e.nparams < winner.nparams || (e.nparams === winner.nparams && e.aicc < winner.aicc)) winner = e;
+  }
+  return winner;
+}
+
+function recordOf(entries: Entry[], chosen: Entry | null): Candidate[] {
+  return entries.map((e) => {
+    const c: Candidate = {
+      order: { p: e.p, d: e.fit?.order.d ?? 0, q: e.q },
+      seasonalHarmonics: e.k,
+      includeMean: e.mean,
+      aicc: Number.isFinite(e.aicc) ? e.aicc : null,
+    };
+    if (chosen && e !== chosen && Number.isFinite(e.aicc)) {
+      if (e.aicc < chosen.aicc && e.unsound) c.passedOver = e.unsound;
+      else if (e.aicc - chosen.aicc < NEAR_TIE && chosen.nparams < e.nparams)
+        c.passedOver = `within ${NEAR_TIE} AICc of the chosen model, which has fewer parameters`;
+      else if (e.aicc < chosen.aicc) c.passedOver = 'lower AICc but not reached by the search rule';
+    }
+    return c;
+  });
+}
+
+function reasonOf(
+  c: Entry,
+  d: number,
+  tests: KpssResult[],
+  tried: number,
+  search: string,
+  screen: ModelChoice['seasonalScreen'],
+): string {
+  const kp = tests
+    .map((t, i) => `KPSS η = ${t.statistic.toFixed(3)} ${t.rejects ? '>' : '≤'} 0.463 at d = ${i}`)
+    .join('; ');
+  const drift = d === 1 && c.mean ? ' with drift' : d === 0 && c.mean ? ' with mean' : '';
+  const seas =
+    c.k > 0
+      ? `, ${c.k} annual harmonic pair(s)`
+      : screen?.tried
+        ? screen.pValue < SCREEN_LEVEL
+          ? ', annual terms tried and not better by AICc'
+          : `, no annual cycle (screen p = ${screen.pValue.toFixed(3)})`
+        : '';
+  const sound = c.unsound ? ` (no sound candidate: ${c.unsound})` : '';
+  return `${search} AICc search over ${tried} candidates; d = ${d} (${kp}); chose ARIMA(${c.p},${d},${c.q})${drift}${seas}, AICc ${c.aicc.toFixed(2)}${sound}`;
+}
+
+function forcedChoice(
+  series: Float64Array,
+  weekStart: string[],
+  forced: NonNullable<ChooseOptions['forced']>,
+  base: BaseFields,
+): ModelChoice {
+  const { order, seasonalHarmonics: k, includeMean } = forced;
+  const xreg = k > 0 ? fourierColumns(weekTimes(weekStart), k) : undefined;
+  let fit: ArmaFit | null = null;
+  try {
+    fit = fitArma(series, { p: order.p, d: order.d, q: order.q, includeMean, xreg });
+  } catch {
+    fit = null;
+  }
+  if (!fit)
+    return fallbackChoice(series, base, [], `the forced ARIMA(${order.p},${order.d},${order.q}) failed`);
+  const fitted = Array.from(fit.fitted);
+  return {
+    ...base,
+    kind: fit.fallback ? 'fallback' : 'arma',
+    order: { ...order },
+    seasonalHarmonics: k,
+    includeMean,
+    fit,
+    intermittent: null,
+    fallbackLevel: null,
+    selection: {
+      search: 'forced',
+      candidates: [
+        {
+          order: { ...order },
+          seasonalHarmonics: k,
+          includeMean,
+          aicc: Number.isFinite(fit.aicc) ? fit.aicc : null,
+        },
+      ],
+      reason: `model forced: ARIMA(${order.p},${order.d},${order.q})${k > 0 ? ` with ${k} harmonic pair(s)` : ''}`,
+    },
+    differencing: [],
+    fitted,
+    residuals: residualsOf(series, fitted),
+    seasonalScreen: null,
+  };
+}
+
+interface BaseFields {
+  demandClass: ModelChoice['demandClass'];
+  demand: DemandProfile;
+  lastWeekStart: string;
+  historyWeeks: number;
+  observedWeeks: number;
+}
+
+/** Last resort when no model fits: the mean of the observed weeks (or the last value) with the history's spread. */
+function fallbackChoice(
+  series: Float64Array,
+  base: BaseFields,
+  tests: KpssResult[],
+  why: string,
+  candidates: Candidate[] = [],
+): ModelChoice {
+  let m = 0;
+  let s = 0;
+  let last = Number.NaN;
+  for (let i = 0; i < series.length; i++) {
+    if (!Number.isFinite(series[i])) continue;
+    m++;
+    s += series[i];
+    last = series[i];
+  }
+  const mean = m > 0 ? s / m : 0;
+  let ss = 0;
+  for (let i = 0; i < series.length; i++) if (Number.isFinite(series[i])) ss += (series[i] - mean) ** 2;
+  let sd = m > 1 ? Math.sqrt(ss / (m - 1)) : 0;
+  // A spread is never zero: with one point or a constant history use a tenth of the level (common practice
+  // for a placeholder; flagged for review).
+  if (!(sd > 0)) sd = Math.max(Math.abs(Number.isFinite(last) ? last : mean) / 10, 1e-6);
+  const fitted = Array.from(series, () => mean);
+  return {
+    ...base,
+    kind: 'fallback',
+    order: { p: 0, d: 0, q: 0 },
+    seasonalHarmonics: 0,
+    includeMean: true,
+    fit: null,
+    intermittent: null,
+    fallbackLevel: { value: mean, sd, basis: 'mean' },
+    selection: { search: 'none', candidates, reason: `fallback to the mean: ${why}` },
+    differencing: tests,
+    fitted,
+    residuals: residualsOf(series, fitted),
+    seasonalScreen: null,
+  };
+}
+
+function isConstant(y: Float64Array): boolean {
+  let first = Number.NaN;
+  for (let i = 0; i < y.length; i++) {
+    if (!Number.isFinite(y[i])) continue;
+    if (Number.isNaN(first)) first = y[i];
+    else if (y[i] !== first) return false;
+  }
+  return true;
+}
+
+function residualsOf(y: Float64Array, fitted: ArrayLike<number>): number[] {
+  const out = new Array<number>(y.length);
+  for (let i = 0; i < y.length; i++) out[i] = y[i] - fitted[i];
+  return out;
+}
