@@ -113,3 +113,51 @@ export const DEFAULT_WORKSPACE: WorkspaceSettings = {
   abcCutoffs: [0.8, 0.95],
   abcServiceLevels: { A: 0.98, B: 0.95, C: 0.9 },
 };
+
+/** Which review a line was planned for: continuous (s, Q) when reviewPeriodWeeks = 0, else periodic (R, S). */
+export type ReviewKind = 'continuous' | 'periodic';
+
+/**
+ * One item's replenishment decision (core/replenish/orderLine). Quantities in the item's unit.
+ * CSV export columns map as order_qty = orderQty, case_packs = casePacks, reorder_point = reorderPoint,
+ * order_up_to = orderUpTo, safety_stock = safetyStock, interval_forecast = intervalForecast,
+ * interval_sd = intervalSd, service_level = serviceLevel, service_kind = serviceKind.
+ */
+export interface OrderLine {
+  orderQty: number;
+  casePacks: number;
+  reorderPoint: number;
+  orderUpTo: number;
+  safetyStock: number;
+  /** Safety stock the policy maths gave before an override or the zero floor. */
+  computedSafetyStock: number;
+  /** Forecast demand over the protection interval (L, or R + L weeks). */
+  intervalForecast: number;
+  /** Its standard deviation, covariances between weeks and lead-time spread included. */
+  intervalSd: number;
+  intervalWeeks: number;
+  /** Forecast demand over the lead time alone. */
+  leadTimeForecast: number;
+  serviceLevel: number;
+  serviceKind: ServiceKind;
+  /** Where the service target came from. */
+  serviceSource: 'item' | 'abc' | 'workspace';
+  safetyFactor: number;
+  review: ReviewKind;
+  inventoryPosition: number;
+  /** Order-up-to − position before rounding and caps (0 when no order is due). */
+  rawQty: number;
+  /** Economic order quantity (Harris 1913) for continuous review when costs are known, else null. */
+  eoq: number | null;
+  /** Lot size used for continuous review (S = s + lot), null for periodic review. */
+  lotSize: number | null;
+  /** Units a delivery can sell before expiry (shelf-life items), else null. */
+  shelfLifeLimit: number | null;
+  /** Codes of each rounding or cap that changed the quantity: case-pack, moq, shelf-life, … */
+  capsApplied: string[];
+  /** Planner overrides this line respected: safety-stock, forecast-adjustment, forced-model. */
+  overridesRespected: string[];
+  /** The variance source: 'model' (ARMA ψ-weights), 'intermittent-method' or 'fallback'. */
+  varianceSource: 'model' | 'intermittent-method' | 'fallback';
+  explanation: string;
+}

@@ -1,0 +1,52 @@
+/**
+ * Service achieved by the replenishment policy on long simulations of ARMA demand
+ * (core/replenish/policySimulation), beside the √L rule on the same demand. Prints figures; the
+ * pass/fail ranges are in test/unit/replenish/policySimulation.test.ts. Demand models in the
+ * ma-minus convention, mean 100, σ_ε = 10; the policy uses the true model's moments.
+ */
+import { simulatePolicy } from '../../core/replenish/policySimulation';
+
+const years = Number(process.env.POLICY_YEARS ?? 4000);
+const models = [
+  { name: 'AR(1) φ=0.7', ar: [0.7], ma: [] as number[] },
+  { name: 'MA(1) θ=0.5', ar: [] as number[], ma: [0.5] },
+  { name: 'ARMA(1,1) φ=0.7 θ=−0.5', ar: [0.7], ma: [-0.5] },
+];
+const pct = (x: number) => `${(100 * x).toFixed(2)}%`;
+const started = performance.now();
+for (const [review, lot] of [
+  [1, undefined],
+  [0, 100],
+  [0, 800],
+] as const) {
+  process.stdout.write(
+    `\n${review ? 'periodic review R = 1 (protection interval L + 1)' : `continuous review (s, Q) checked weekly, lot ${lot} = ${(lot ?? 0) / 100} weeks of demand (protection interval L)`}; ${years} years each\n`,
+  );
+  process.stdout.write(
+    'model                      L  | cycle 95%: ours    √L rule  | fill 98%: ours    √L rule  | avg on hand ours/√L (cycle)\n',
+  );
+  for (const m of models) {
+    for (const L of [2, 6]) {
+      const base = {
+        model: { ar: m.ar, ma: m.ma, sigma2: 100, mean: 100 },
+        leadTimeWeeks: L,
+        reviewPeriodWeeks: review,
+        years,
+        seed: 42 + L,
+        lotSize: lot,
+      };
+      const c = simulatePolicy({ ...base, service: { kind: 'cycle', level: 0.95 } });
+      const cs = simulatePolicy({ ...base, service: { kind: 'cycle', level: 0.95 }, rule: 'sqrt-weeks' });
+      const f = simulatePolicy({ ...base, service: { kind: 'fill', level: 0.98 } });
+      const fs = simulatePolicy({ ...base, service: { kind: 'fill', level: 0.98 }, rule: 'sqrt-weeks' });
+      process.stdout.write(
+        `${m.name.padEnd(26)} ${L}  | ${pct(c.cycleServiceLevel).padStart(15)} ${pct(cs.cycleServiceLevel).padStart(9)}  | ${pct(
+          f.fillRate,
+        ).padStart(
+          14,
+        )} ${pct(fs.fillRate).padStart(9)}  | ${c.averageOnHand.toFixed(1)} / ${cs.averageOnHand.toFixed(1)}\n`,
+      );
+    }
+  }
+}
+process.stdout.write(`\nwall time ${((performance.now() - started) / 1000).toFixed(1)} s\n`);
