@@ -2,8 +2,9 @@
  * Reading a sales file into weekly cells. Weekly buckets (week,sku,qty[,stockout]): one row per item
  * and week, a repeated pair is an error; a week value that is not the week's first day is taken as
  * the week that holds it. Dated lines (date,sku,qty[,order]): summed into the week of their date;
- * within the span of the file (an item's first week to the file's last week) a week with no line
- * had no sales and is stored as 0.
+ * within the span of the file a week with no line had no sales and is stored as 0 (the span runs
+ * from the file's first week for an item with earlier history, from its first line for a new one,
+ * to the file's last week).
  *
  * Memory grows with distinct item-weeks, not with lines: cells live in typed arrays keyed by a
  * small integer (item index × 65536 + week index).
@@ -190,6 +191,8 @@ export class SalesCollector {
     order.sort((a, b) => keys[a] - keys[b]);
     const stats: SalesWriteStats = { inserted: 0, replaced: 0, changed: 0, zeroFilled: 0, changes: [] };
     const lastWeek = this.dated ? weekStartOf(this.maxDay, this.ctx.weekStartDay) : 0;
+    const fileFirstWeek = this.dated ? weekStartOf(this.minDay, this.ctx.weekStartDay) : 0;
+    const fileFirstWeekIso = formatIsoDate(fileFirstWeek);
     let i = 0;
     while (i < this.n) {
       const skuIdx = Math.floor(keys[order[i]] / 65536);
@@ -212,7 +215,14 @@ export class SalesCollector {
         } else stats.inserted++;
         writer.upsert(itemId, ws, qty, out, batchId);
       };
+      // An item with history before this file had no sales in the file's weeks without lines; an
+      // item new to the store starts at its first line.
       let nextWeek = this.weekDay[order[i]];
+      if (this.dated && existing) {
+        let earlier = false;
+        for (const w of existing.keys()) if (w < fileFirstWeekIso) earlier = true;
+        if (earlier) nextWeek = fileFirstWeek;
+      }
       while (i < this.n && Math.floor(keys[order[i]] / 65536) === skuIdx) {
         const s = order[i];
         if (this.dated) {
