@@ -685,3 +685,65 @@ export function getOrderLinesBySupplier(
   }
   return { runId: run, groups };
 }
+
+/** SKU → the chosen model and item status of every item in a run (default: latest), in one query. */
+export function getChosenModels(
+  store: Store,
+  runId?: number,
+): Map<
+  string,
+  {
+    p: number;
+    d: number;
+    q: number;
+    seasonalHarmonics: number;
+    includeMean: boolean;
+    status: ItemRunResult['status'];
+  } | null
+> {
+  const out = new Map<
+    string,
+    {
+      p: number;
+      d: number;
+      q: number;
+      seasonalHarmonics: number;
+      includeMean: boolean;
+      status: ItemRunResult['status'];
+    } | null
+  >();
+  const run = resolveRunId(store, runId);
+  if (run === null) return out;
+  const rows = store.db
+    .prepare(
+      `SELECT i.sku, ri.status, m.p, m.d, m.q, m.seasonal_harmonics, m.include_mean
+       FROM run_items ri JOIN items i ON i.id = ri.item_id
+       LEFT JOIN run_models m ON m.run_id = ri.run_id AND m.item_id = ri.item_id AND m.chosen = 1
+       WHERE ri.run_id = ?`,
+    )
+    .all(run) as {
+    sku: string;
+    status: ItemRunResult['status'];
+    p: number | null;
+    d: number | null;
+    q: number | null;
+    seasonal_harmonics: number | null;
+    include_mean: number | null;
+  }[];
+  for (const r of rows) {
+    out.set(
+      r.sku,
+      r.p === null
+        ? null
+        : {
+            p: r.p,
+            d: r.d ?? 0,
+            q: r.q ?? 0,
+            seasonalHarmonics: r.seasonal_harmonics ?? 0,
+            includeMean: r.include_mean === 1,
+            status: r.status,
+          },
+    );
+  }
+  return out;
+}

@@ -1,0 +1,173 @@
+/**
+ * Benchmark of the weekly planning run, end to end through the real command line:
+ *   1. write a sales file alone (week,sku,qty) for N items × 156 weeks, seeded, so every item is a
+ *      placeholder on the workspace defaults;
+ *   2. `npm run -s cli -- import FILE --store DB --kind sales`;
+ *   3. `/usr/bin/time -v npm run -s cli -- run --store DB` (automatic model choice for every item);
+ *   4. `npm run -s cli -- plan --store DB --out FILE.csv`, and count its lines.
+ * For N = 1,000 and N = 10,000 (BENCH_RUN_SIZES=1000,10000 to change). Prints wall time, peak RSS
+ * of the largest process (GNU time's "Maximum resident set size": the largest single process of
+ * the tree it waited for; worker threads are threads of the CLI's node process, so their memory is
+ * inside that one figure), the per-item time, and the scaling from the smallest to the largest N.
+ * Targets (issue 5): 10,000 items ≤ 60 s wall and ≤ 1 GB peak RSS on this 2-core machine.
+ */
+import { spawnSync } from 'node:child_process';
+import { once } from 'node:events';
+import { createWriteStream, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+const WEEKS = 156;
+const sizes = (process.env.BENCH_RUN_SIZES ?? '1000,10000').split(',').map(Number);
+const root = join(import.meta.dirname, '..', '..');
+const dir = mkdtempSync(join(tmpdir(), 'provision-run-bench-'));
+
+function addWeeks(iso: string, n: number): string {
+  const d = new Date(`${iso}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + 7 * n);
+  return d.toISOString().slice(0, 10);
+}
+
+/**
+ * A seeded mix of demand patterns (our own, for timing only): AR(1), MA(1), white noise around a
+ * level, a slow trend, and intermittent items (about one week in four with demand).
+ */
+async function writeSales(path: string, items: number): Promise<void> {
+  let s = 20240101;
+  const rand = () => {
+    s = (Math.imul(1664525, s) + 1013904223) >>> 0; // LCG, Numerical Recipes constants
+    return (s + 0.5) / 2 ** 32;
+  };
+  const gauss = () => Math.sqrt(-2 * Math.log(rand())) * Math.cos(2 * Math.PI * rand()); // Box–Muller
+  const weeks = Array.from({ length: WEEKS }, (_, k) => addWeeks('2023-01-02', k));
+  const out = createWriteStream(path);
+  out.write('week,sku,qty\n');
+  for (let i = 0; i < items; i++) {
+    const sku = `B${String(i).padStart(5, '0')}`;
+    const kind = i % 10;
+    const level = 20 + 200 * rand();
+    const sd = level * (0.1 + 0.2 * rand());
+    let prev = 0;
+    let prevE = 0;
+    let chunk = '';
+    for (let k = 0; k < WEEKS; k++) {
+      const e = gauss() * sd;
+      let y: number;
+      if (kind < 3) {
+        prev = 0.6 * prev + e; // AR(1) φ = 0.6
+        y = level + prev;
+      } else if (kind < 5) {
+        y = level + e - 0.4 * prevE; // MA(1) θ = 0.4
+      } else if (kind < 8) {
+        y = level + e;
+      } else if (kind < 9) {
+        y = level * (0.7 + (0.6 * k) / WEEKS) + e;
+      } else {
+        y = rand() < 0.25 ? Math.max(1, level * 0.2 + e * 0.2) : 0;
+      }
+      prevE = e;
+      chunk += `${weeks[k]},${sku},${Math.max(0, Math.round(y))}\n`;
+    }
+    if (!out.write(chunk)) await once(out, 'drain');
+  }
+  out.end();
+  await once(out, 'finish');
+}
+
+interface Timed {
+  wallSeconds: number;
+  maxRssKb: number;
+  status: number | null;
+  stdout: string;
+  stderr: string;
+}
+
+function timed(args: string[]): Timed {
+  const r = spawnSync('/usr/bin/time', ['-v', 'npm', 'run', '-s', 'cli', '--', ...args], {
+    cwd: root,
+    encoding: 'utf8',
+    maxBuffer: 64 * 1024 * 1024,
+  });
+  const wall = /Elapsed \(wall clock\) time \(h:mm:ss or m:ss\): (?:(\d+):)?(\d+):([\d.]+)/.exec(r.stderr);
+  const rss = /Maximum resident set size \(kbytes\): (\d+)/.exec(r.stderr);
+  const wallSeconds = wall
+    ? Number(wall[1] ?? 0) * 3600 + Number(wall[2]) * 60 + Number(wall[3])
+    : Number.NaN;
+  return {
+    wallSeconds,
+    maxRssKb: rss ? Number(rss[1]) : Number.NaN,
+    status: r.status,
+    stdout: r.stdout,
+    stderr: r.stderr,
+  };
+}
+
+function lastJson(text: string): Record<string, unknown> {
+  const lines = text.trim().split('\n');
+  return JSON.parse(lines[lines.length - 1]);
+}
+
+const results: { n: number; wall: number; rssMb: number; msPerItemWall: number; msPerItemWorker: number }[] =
+  [];
+try {
+  for (const n of sizes) {
+    const sales = join(dir, `sales-${n}.csv`);
+    const db = join(dir, `store-${n}.sqlite`);
+    const csv = join(dir, `orders-${n}.csv`);
+    await writeSales(sales, n);
+    const imp = timed(['import', sales, '--store', db, '--kind', 'sales']);
+    if (imp.status !== 0) throw new Error(`import failed:\n${imp.stderr.slice(-2000)}`);
+    const impSummary = lastJson(imp.stdout);
+    process.stdout.write(
+      `N=${n}: import ${impSummary.rowsRead} rows, ${impSummary.items} items: ${imp.wallSeconds.toFixed(1)} s, ${(imp.maxRssKb / 1024).toFixed(0)} MB\n`,
+    );
+    const run = timed(['run', '--store', db]);
+    if (run.status !== 0) throw new Error(`run failed:\n${run.stderr.slice(-2000)}`);
+    const s = lastJson(run.stdout) as {
+      planned: number;
+      failed: number;
+      flagged: number;
+      seconds: number;
+      msPerItem: number;
+      itemsPerSecond: number;
+    };
+    const plan = timed(['plan', '--store', db, '--out', csv]);
+    if (plan.status !== 0) throw new Error(`plan failed:\n${plan.stderr.slice(-2000)}`);
+    const rows = readFileSync(csv, 'utf8').trim().split('\r\n').length - 1;
+    const rssMb = run.maxRssKb / 1024;
+    results.push({
+      n,
+      wall: run.wallSeconds,
+      rssMb,
+      msPerItemWall: (1000 * run.wallSeconds) / n,
+      msPerItemWorker: s.msPerItem,
+    });
+    process.stdout.write(
+      `N=${n}: run ${run.wallSeconds.toFixed(1)} s wall (inside: ${s.seconds.toFixed(1)} s, planning ${s.itemsPerSecond.toFixed(0)} items/s), ` +
+        `peak RSS ${rssMb.toFixed(0)} MB, ${s.planned} planned, ${s.failed} failed, ${s.flagged} flagged; ` +
+        `${((1000 * run.wallSeconds) / n).toFixed(2)} ms/item wall, ${s.msPerItem.toFixed(2)} ms/item in a worker\n`,
+    );
+    process.stdout.write(
+      `N=${n}: plan ${plan.wallSeconds.toFixed(1)} s, ${(plan.maxRssKb / 1024).toFixed(0)} MB, ${rows} lines exported` +
+        `${rows === n ? '' : ` (EXPECTED ${n})`}\n`,
+    );
+    rmSync(sales, { force: true });
+  }
+  if (results.length >= 2) {
+    const a = results[0];
+    const b = results[results.length - 1];
+    process.stdout.write(
+      `scaling ${a.n} → ${b.n} items (×${(b.n / a.n).toFixed(0)}): wall ×${(b.wall / a.wall).toFixed(2)}, ` +
+        `ms/item wall ${a.msPerItemWall.toFixed(2)} → ${b.msPerItemWall.toFixed(2)}, peak RSS ${a.rssMb.toFixed(0)} → ${b.rssMb.toFixed(0)} MB\n`,
+    );
+  }
+  const big = results.find((r) => r.n === 10000);
+  if (big) {
+    process.stdout.write(
+      `target 10,000 items: ${big.wall.toFixed(1)} s ≤ 60 s: ${big.wall <= 60 ? 'yes' : 'NO'}; ` +
+        `${big.rssMb.toFixed(0)} MB ≤ 1024 MB: ${big.rssMb <= 1024 ? 'yes' : 'NO'}\n`,
+    );
+  }
+} finally {
+  rmSync(dir, { recursive: true, force: true });
+}
