@@ -5,6 +5,7 @@
  * as empty rather than breaking the screen.
  */
 import type { Flag } from '../../core/plan/types';
+import { orderCsv } from '../run/orderCsv';
 import { listStoredItems } from '../store/items';
 import {
   getItemRunResult,
@@ -28,6 +29,8 @@ export interface ResultsSource {
   summaries(): Map<string, ItemSummary>;
   item(sku: string, historyWeeks: string[]): ItemResult | null;
   orderLines(): OrderLine[];
+  /** The order list of the latest run as the command line's `plan` exports it, planner edits applied. */
+  ordersCsv(): string;
 }
 
 const SEVERITY_WEIGHT = { critical: 100, warning: 10, info: 1 } as const;
@@ -202,6 +205,10 @@ export function storeResults(store: Store): ResultsSource {
         order: r.order ? toOrderLine(r.order) : null,
         overridesApplied: Array.isArray(extra.overridesApplied) ? extra.overridesApplied.map(String) : [],
       };
+    },
+
+    ordersCsv() {
+      return orderCsv(getOrderLinesBySupplier(store, { runId: run?.id }).groups);
     },
 
     orderLines() {

@@ -43,7 +43,6 @@ import type {
   StoreInfo,
   SupplierOrders,
 } from './contract';
-import { ordersCsv } from './order-csv';
 import { type ResultsSource, severityScore } from './results';
 import { ServiceError } from './service-error';
 
@@ -335,8 +334,7 @@ export function createService(options: ServiceOptions): ProvisionService {
     async exportOrdersCsv(): Promise<{ fileName: string; csv: string }> {
       const run = results.latestRun();
       if (!run) throw new ServiceError('no planning run yet: nothing to export');
-      const lines = groupBySupplier(results.orderLines()).flatMap((g) => g.lines);
-      return { fileName: `orders-run-${run.id}.csv`, csv: ordersCsv(lines) };
+      return { fileName: `orders-run-${run.id}.csv`, csv: results.ordersCsv() };
     },
 
     async getSettings(): Promise<WorkspaceSettings> {
