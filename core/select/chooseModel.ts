@@ -31,6 +31,8 @@ export interface ChooseOptions {
   maxHarmonics?: number;
   /** Skip the seasonal step entirely. */
   seasonal?: boolean;
+  /** Fix the order of differencing instead of testing for it (reference comparisons). */
+  d?: number;
 }
 
 export const NEAR_TIE = 0.1;
@@ -142,7 +144,8 @@ export function chooseModel(
     };
   }
 
-  const { d, tests } = chooseDifferencing(series, 2);
+  const { d, tests } =
+    options.d !== undefined ? { d: options.d, tests: [] as KpssResult[] } : chooseDifferencing(series, 2);
   const maxOrder = options.maxOrder ?? 5;
   const maxK = options.maxHarmonics ?? 4;
   const times = weekTimes(weekStart);

@@ -30,7 +30,7 @@ describe('chooseModel: the selection rules', () => {
     // No other candidate beats the winner by NEAR_TIE or more without a recorded reason.
     for (const k of cands) {
       if (k === chosen || k.aicc === null) continue;
-      if (k.aicc < chosen!.aicc) expect(k.passedOver).toBeTruthy();
+      if (k.aicc < (chosen?.aicc ?? Number.NEGATIVE_INFINITY)) expect(k.passedOver).toBeTruthy();
     }
     // The winner is sound: converged and every root modulus ≥ 1.01.
     expect(c.fit!.converged).toBe(true);
