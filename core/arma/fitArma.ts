@@ -1,0 +1,490 @@
+/**
+ * Exact maximum-likelihood fit of an ARIMA(p,d,q) model, optionally with a mean and regressors
+ * (a regression with ARMA errors on the d-th difference):
+ *   - likelihood: one Kalman filter (kalmanLikelihood.ts), σ², the mean and the regressor
+ *     coefficients concentrated out (σ² analytically, the rest by GLS through the same filter);
+ *   - parameters: AR and MA polynomials through their partial autocorrelations, π = tanh(u)
+ *     (Jones 1980; Monahan 1984), so BFGS works unconstrained and every iterate is stationary and
+ *     invertible;
+ *   - starts: Hannan–Rissanen (1982) and zero, plus the pure-AR and pure-MA corners; the best
+ *     optimum is kept (the ARMA(2,2) likelihood is often bimodal);
+ *   - standard errors: inverse of the numerical Hessian of −log L in the natural parameters
+ *     (φ, θ, mean, β), σ² concentrated, as base R's stats::arima computes them.
+ * Awkward series never throw: they return a fallback (the mean, or the last value) with flags.
+ */
+import { difference, integrationWeights } from './difference';
+import type { ArmaLikelihood } from './kalmanLikelihood';
+import { solveNormalEquations } from './leastSquares';
+import { searchOptimum } from './searchOptimum';
+import type { ArmaFit, ArmaFitOptions } from './types';
+
+const MAX_P = 5;
+const MAX_Q = 5;
+const MAX_D = 2;
+
+function checkOrder(opts: ArmaFitOptions): void {
+  const { p, d, q } = opts;
+  for (const [name, v, max] of [
+    ['p', p, MAX_P],
+    ['d', d, MAX_D],
+    ['q', q, MAX_Q],
+  ] as const) {
+    if (!Number.isInteger(v) || v < 0 || v > max) {
+      throw new RangeError(`ARMA order ${name} = ${v} is not an integer between 0 and ${max}`);
+    }
+  }
+}
+
+interface Prepared {
+  n: number;
+  y: Float64Array;
+  w: Float64Array;
+  xcols: Float64Array[];
+  nobs: number;
+  flags: string[];
+}
+
+function prepare(y: ArrayLike<number>, opts: ArmaFitOptions, includeMean: boolean): Prepared {
+  const n = y.length;
+  const flags: string[] = [];
+  const yc = new Float64Array(n);
+  let nonFinite = false;
+  for (let t = 0; t < n; t++) {
+    const v = Number(y[t]);
+    if (Number.isNaN(v)) yc[t] = Number.NaN;
+    else if (!Number.isFinite(v)) {
+      yc[t] = Number.NaN;
+      nonFinite = true;
+    } else yc[t] = v;
+  }
+  const w = difference(yc, opts.d);
+  const xcols: Float64Array[] = [];
+  if (includeMean) xcols.push(new Float64Array(n).fill(1));
+  for (const [i, col] of (opts.xreg ?? []).entries()) {
+    if (col.length !== n) {
+      throw new RangeError(`regressor column ${i} has length ${col.length}, the series ${n}`);
+    }
+    const xc = difference(col, opts.d);
+    for (let t = 0; t < n; t++) {
+      if (!Number.isFinite(xc[t]) && !Number.isNaN(w[t])) {
+        if (t >= opts.d) nonFinite = true;
+        w[t] = Number.NaN;
+      }
+      if (!Number.isFinite(xc[t])) xc[t] = 0;
+    }
+    xcols.push(xc);
+  }
+  if (nonFinite) flags.push('non-finite-input');
+  let nobs = 0;
+  for (let t = 0; t < n; t++) if (!Number.isNaN(w[t])) nobs++;
+  return { n, y: yc, w, xcols, nobs, flags };
+}
+
+function lastLevels(yFilled: Float64Array, d: number): number[] {
+  const out: number[] = [];
+  for (let k = 1; k <= d; k++) out.push(yFilled.length - k >= 0 ? yFilled[yFilled.length - k] : 0);
+  return out;
+}
+
+function xregTail(opts: ArmaFitOptions, n: number): number[][] {
+  return (opts.xreg ?? []).map((col) => {
+    const tail: number[] = [];
+    for (let k = 1; k <= opts.d; k++) tail.push(n - k >= 0 ? col[n - k] : 0);
+    return tail;
+  });
+}
+
+/** White noise around the mean (d = 0) or a random walk from the last value (d ≥ 1). */
+function fallbackFit(prep: Prepared, opts: ArmaFitOptions, includeMean: boolean, flags: string[]): ArmaFit {
+  const { n, y, w } = prep;
+  const { p, d, q } = opts;
+  const kind: 'mean' | 'last-value' = d === 0 ? 'mean' : 'last-value';
+  // Level: the mean of the observed values, or the last observed value.
+  let sum = 0;
+  let count = 0;
+  let last = Number.NaN;
+  for (let t = 0; t < n; t++) {
+    if (!Number.isNaN(y[t])) {
+      sum += y[t];
+      count++;
+      last = y[t];
+    }
+  }
+  if (count === 0) {
+    flags.push('no-observations');
+    sum = 0;
+    count = 1;
+    last = 0;
+  }
+  const level = kind === 'mean' ? sum / count : last;
+  // Innovation variance: of y around its mean, or of the first differences.
+  let ss = 0;
+  let m = 0;
+  if (kind === 'mean') {
+    for (let t = 0; t < n; t++) {
+      if (!Number.isNaN(y[t])) {
+        ss += (y[t] - level) ** 2;
+        m++;
+      }
+    }
+  } else {
+    for (let t = 1; t < n; t++) {
+      const dv = y[t] - y[t - 1];
+      if (!Number.isNaN(dv)) {
+        ss += dv * dv;
+        m++;
+      }
+    }
+  }
+  const sigma2 = m > 0 && Number.isFinite(ss) ? ss / m : 0;
+  const nobsFallback = m;
+  let loglik = Number.NaN;
+  if (sigma2 > 0 && m > 0) loglik = -0.5 * m * (Math.log(2 * Math.PI * sigma2) + 1);
+  const nparams = kind === 'mean' ? 2 : 1;
+  const aic = -2 * loglik + 2 * nparams;
+  const denom = nobsFallback - nparams - 1;
+  const residuals = new Float64Array(n).fill(Number.NaN);
+  const standardized = new Float64Array(n).fill(Number.NaN);
+  const fitted = new Float64Array(n).fill(Number.NaN);
+  for (let t = 0; t < n; t++) {
+    if (kind === 'mean') fitted[t] = level;
+    else if (t > 0 && !Number.isNaN(y[t - 1])) fitted[t] = y[t - 1];
+    if (!Number.isNaN(w[t]) && !Number.isNaN(fitted[t])) {
+      residuals[t] = y[t] - fitted[t];
+      standardized[t] = sigma2 > 0 ? residuals[t] / Math.sqrt(sigma2) : 0;
+    }
+  }
+  const r = Math.max(p, q + 1);
+  const cov = new Array<number>(r * r).fill(0);
+  cov[0] = 1;
+  const out: ArmaFit = {
+    order: { p, d, q },
+    includeMean,
+    mean: includeMean ? (kind === 'mean' ? level : 0) : null,
+    xregCoef: (opts.xreg ?? []).map(() => 0),
+    ar: new Array<number>(p).fill(0),
+    ma: new Array<number>(q).fill(0),
+    sigma2,
+    loglik,
+    aic,
+    aicc: denom > 0 ? aic + (2 * nparams * (nparams + 1)) / denom : Number.POSITIVE_INFINITY,
+    bic: -2 * loglik + Math.log(Math.max(1, nobsFallback)) * nparams,
+    nobs: prep.nobs,
+    nparams,
+    converged: false,
+    stderr: {
+      ar: new Array<number>(p).fill(Number.NaN),
+      ma: new Array<number>(q).fill(Number.NaN),
+      mean: includeMean ? (m > 0 ? Math.sqrt(sigma2 / m) : 0) : null,
+      xreg: (opts.xreg ?? []).map(() => Number.NaN),
+    },
+    residuals,
+    standardizedResiduals: standardized,
+    fitted,
+    flags: [...flags, 'fallback'],
+    fallback: kind,
+    forecastState: {
+      state: new Array<number>(r).fill(0),
+      covariance: cov,
+      lastLevels: new Array<number>(d).fill(last),
+      n,
+      xregTail: xregTail(opts, n),
+      level,
+    },
+    evaluations: 0,
+  };
+  return out;
+}
+
+export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
+  checkOrder(opts);
+  const { p, d, q } = opts;
+  const includeMean = opts.includeMean ?? d === 0;
+  const prep = prepare(y, opts, includeMean);
+  const flags = [...prep.flags];
+  const { n, w, xcols, nobs } = prep;
+  const k = xcols.length;
+
+  if (nobs <= p + q + 2 || nobs <= k + 1) {
+    flags.push('too-short');
+    return fallbackFit(prep, opts, includeMean, flags);
+  }
+  // Constant differenced series: nothing to fit.
+  let first = Number.NaN;
+  let constant = true;
+  let allZero = true;
+  for (let t = 0; t < n; t++) {
+    const v = w[t];
+    if (Number.isNaN(v)) continue;
+    if (Number.isNaN(first)) first = v;
+    else if (v !== first) constant = false;
+    if (!Number.isNaN(prep.y[t]) && prep.y[t] !== 0) allZero = false;
+  }
+  if (constant) {
+    flags.push(allZero ? 'all-zero' : 'constant');
+    return fallbackFit(prep, opts, includeMean, flags);
+  }
+
+  // Remove a preliminary OLS fit of the regressors and rescale, so that GLS works on deviations of
+  // order one (no cancellation in Σv² − β'Xv for levels like 1e7).
+  const beta0 = new Float64Array(k);
+  if (k > 0) {
+    const xtx = new Float64Array(k * k);
+    const xty = new Float64Array(k);
+    for (let t = 0; t < n; t++) {
+      if (Number.isNaN(w[t])) continue;
+      for (let i = 0; i < k; i++) {
+        xty[i] += xcols[i][t] * w[t];
+        for (let j = 0; j < k; j++) xtx[i * k + j] += xcols[i][t] * xcols[j][t];
+      }
+    }
+    const b = solveNormalEquations(xtx, xty, k);
+    if (!b) {
+      flags.push('collinear-regressors');
+      return fallbackFit(prep, opts, includeMean, flags);
+    }
+    beta0.set(b);
+  }
+  const u = new Float64Array(n);
+  let ss = 0;
+  for (let t = 0; t < n; t++) {
+    if (Number.isNaN(w[t])) {
+      u[t] = Number.NaN;
+      continue;
+    }
+    let xb = 0;
+    for (let i = 0; i < k; i++) xb += xcols[i][t] * beta0[i];
+    u[t] = w[t] - xb;
+    ss += u[t] * u[t];
+  }
+  const scale = Math.sqrt(ss / nobs);
+  if (!(scale > 0) || !Number.isFinite(scale)) {
+    flags.push('constant');
+    return fallbackFit(prep, opts, includeMean, flags);
+  }
+  for (let t = 0; t < n; t++) u[t] /= scale;
+
+  const search = searchOptimum(u, xcols, p, q, opts.maxIterations ?? 200);
+  if (!search) {
+    flags.push('not-converged');
+    return fallbackFit(prep, opts, includeMean, flags);
+  }
+  const lik = search.lik;
+  const best = search;
+  const arHat = search.ar;
+  const maHat = search.ma;
+  const value = lik.profile(arHat, maHat);
+  const betaU = Array.from(lik.beta);
+  const sigma2U = lik.sigma2;
+  const glsInv = lik.glsInverse();
+  const loglik = lik.loglikFromObjective(value) - nobs * Math.log(scale);
+  const sigma2 = sigma2U * scale * scale;
+  const beta = betaU.map((b, i) => beta0[i] + scale * b);
+
+  // Standard errors from the numerical Hessian of −log L = nobs · objective (σ² concentrated).
+  const se = naturalStandardErrors(lik, arHat, maHat, betaU, sigma2U, glsInv, nobs);
+  if (!se.ok) flags.push('hessian-not-definite');
+
+  const det = lik.detailed(arHat, maHat, betaU);
+  const residuals = new Float64Array(n).fill(Number.NaN);
+  const standardized = new Float64Array(n).fill(Number.NaN);
+  const fitted = new Float64Array(n).fill(Number.NaN);
+  const yFilled = Float64Array.from(prep.y);
+  const c = integrationWeights(d);
+  let state: number[] = new Array<number>(Math.max(p, q + 1)).fill(0);
+  let covariance: number[] = [];
+  if (det) {
+    for (let t = 0; t < n; t++) {
+      let xb0 = 0;
+      for (let i = 0; i < k; i++) xb0 += xcols[i][t] * beta0[i];
+      const predW = scale * det.predictions[t] + xb0;
+      let pred = predW;
+      if (t < d) pred = Number.NaN;
+      else for (let j = 0; j < d; j++) pred += c[j] * yFilled[t - 1 - j];
+      fitted[t] = pred;
+      if (Number.isNaN(yFilled[t]) && !Number.isNaN(pred)) yFilled[t] = pred;
+      if (!Number.isNaN(det.innovations[t])) {
+        residuals[t] = scale * det.innovations[t];
+        standardized[t] = det.innovations[t] / Math.sqrt(sigma2U * det.variances[t]);
+      }
+    }
+    state = det.state.map((v) => v * scale);
+    covariance = det.covariance;
+  } else {
+    flags.push('filter-failed');
+  }
+  if (!best.converged) flags.push('not-converged');
+
+  const nparams = p + q + k + 1;
+  const aic = -2 * loglik + 2 * nparams;
+  const denom = nobs - nparams - 1;
+  const meanIndex = includeMean ? 0 : -1;
+  return {
+    order: { p, d, q },
+    includeMean,
+    mean: includeMean ? beta[0] : null,
+    xregCoef: beta.slice(includeMean ? 1 : 0),
+    ar: arHat,
+    ma: maHat,
+    sigma2,
+    loglik,
+    aic,
+    aicc: denom > 0 ? aic + (2 * nparams * (nparams + 1)) / denom : Number.POSITIVE_INFINITY,
+    bic: -2 * loglik + Math.log(nobs) * nparams,
+    nobs,
+    nparams,
+    converged: best.converged,
+    stderr: {
+      ar: se.values.slice(0, p),
+      ma: se.values.slice(p, p + q),
+      mean: includeMean ? se.values[p + q + meanIndex] * scale : null,
+      xreg: se.values.slice(p + q + (includeMean ? 1 : 0)).map((v) => v * scale),
+    },
+    residuals,
+    standardizedResiduals: standardized,
+    fitted,
+    flags,
+    fallback: null,
+    forecastState: {
+      state,
+      covariance,
+      lastLevels: lastLevels(yFilled, d),
+      n,
+      xregTail: xregTail(opts, n),
+      level: Number.NaN,
+    },
+    evaluations: lik.evaluations,
+  };
+}
+
+/**
+ * √diag of the inverse of the Hessian of −log L in (φ, θ, β) by central differences (steps
+ * 1e-4 for φ, θ; 1e-3 standard errors for β), with σ² concentrated out: the profile likelihood
+ * gives the same covariance for the remaining parameters (Patefield 1977, Biometrika 64(3)).
+ */
+function naturalStandardErrors(
+  lik: ArmaLikelihood,
+  ar: number[],
+  ma: number[],
+  beta: number[],
+  sigma2: number,
+  glsInv: Float64Array | null,
+  nobs: number,
+): { values: number[]; ok: boolean } {
+  const p = ar.length;
+  const q = ma.length;
+  const k = beta.length;
+  const m = p + q + k;
+  const nan = new Array<number>(m).fill(Number.NaN);
+  if (m === 0) return { values: [], ok: true };
+  const z0 = [...ar, ...ma, ...beta];
+  const h = z0.map((_, i) => {
+    if (i < p + q) return 1e-4;
+    const j = i - p - q;
+    const v = glsInv ? sigma2 * glsInv[j * k + j] : 1;
+    return 1e-3 * Math.sqrt(v > 0 && Number.isFinite(v) ? v : 1);
+  });
+  const arW = new Float64Array(p);
+  const maW = new Float64Array(q);
+  const bW = new Float64Array(k);
+  const z = Float64Array.from(z0);
+  const f = (): number => {
+    for (let i = 0; i < p; i++) arW[i] = z[i];
+    for (let i = 0; i < q; i++) maW[i] = z[p + i];
+    for (let i = 0; i < k; i++) bW[i] = z[p + q + i];
+    return nobs * lik.fixed(arW, maW, bW);
+  };
+  const f0 = f();
+  // Shrink a step while the model at ±h leaves the admissible region (an optimum on the edge).
+  for (let i = 0; i < p + q; i++) {
+    for (let tries = 0; tries < 6; tries++) {
+      z[i] = z0[i] + h[i];
+      const a = f();
+      z[i] = z0[i] - h[i];
+      const b = f();
+      z[i] = z0[i];
+      if (Number.isFinite(a) && Number.isFinite(b)) break;
+      h[i] /= 4;
+    }
+  }
+  const H = new Float64Array(m * m);
+  const fp = new Float64Array(m);
+  const fm = new Float64Array(m);
+  for (let i = 0; i < m; i++) {
+    z[i] = z0[i] + h[i];
+    fp[i] = f();
+    z[i] = z0[i] - h[i];
+    fm[i] = f();
+    z[i] = z0[i];
+    H[i * m + i] = (fp[i] - 2 * f0 + fm[i]) / (h[i] * h[i]);
+  }
+  for (let i = 0; i < m; i++) {
+    for (let j = 0; j < i; j++) {
+      z[i] = z0[i] + h[i];
+      z[j] = z0[j] + h[j];
+      const fpp = f();
+      z[j] = z0[j] - h[j];
+      const fpm = f();
+      z[i] = z0[i] - h[i];
+      const fmm = f();
+      z[j] = z0[j] + h[j];
+      const fmp = f();
+      z[i] = z0[i];
+      z[j] = z0[j];
+      const v = (fpp - fpm - fmp + fmm) / (4 * h[i] * h[j]);
+      H[i * m + j] = v;
+      H[j * m + i] = v;
+    }
+  }
+  for (let i = 0; i < m * m; i++) if (!Number.isFinite(H[i])) return { values: nan, ok: false };
+  const inv = invertSymmetric(H, m);
+  if (!inv) return { values: nan, ok: false };
+  const values: number[] = [];
+  let ok = true;
+  for (let i = 0; i < m; i++) {
+    const v = inv[i * m + i];
+    if (v > 0) values.push(Math.sqrt(v));
+    else {
+      values.push(Number.NaN);
+      ok = false;
+    }
+  }
+  return { values, ok };
+}
+
+/** Inverse of a symmetric matrix by Gauss–Jordan elimination with partial pivoting. */
+function invertSymmetric(A: Float64Array, m: number): Float64Array | null {
+  const a = Float64Array.from(A);
+  const inv = new Float64Array(m * m);
+  for (let i = 0; i < m; i++) inv[i * m + i] = 1;
+  for (let c = 0; c < m; c++) {
+    let piv = c;
+    for (let r = c + 1; r < m; r++) if (Math.abs(a[r * m + c]) > Math.abs(a[piv * m + c])) piv = r;
+    const pv = a[piv * m + c];
+    if (!(Math.abs(pv) > 1e-300)) return null;
+    if (piv !== c) {
+      for (let j = 0; j < m; j++) {
+        let t = a[c * m + j];
+        a[c * m + j] = a[piv * m + j];
+        a[piv * m + j] = t;
+        t = inv[c * m + j];
+        inv[c * m + j] = inv[piv * m + j];
+        inv[piv * m + j] = t;
+      }
+    }
+    for (let j = 0; j < m; j++) {
+      a[c * m + j] /= pv;
+      inv[c * m + j] /= pv;
+    }
+    for (let r = 0; r < m; r++) {
+      if (r === c) continue;
+      const f = a[r * m + c];
+      if (f === 0) continue;
+      for (let j = 0; j < m; j++) {
+        a[r * m + j] -= f * a[c * m + j];
+        inv[r * m + j] -= f * inv[c * m + j];
+      }
+    }
+  }
+  return inv;
+}

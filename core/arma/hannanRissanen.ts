@@ -1,0 +1,70 @@
+/**
+ * Starting values by the Hannan–Rissanen (1982, Biometrika 69(1)) two-stage regression:
+ * (1) a long autoregression of order m (Yule–Walker, so it is always stationary) gives
+ *     innovation estimates ê_t; (2) least squares of u_t on u_{t−1..t−p} and ê_{t−1..t−q}.
+ * In the ma-minus convention u_t = Σ φ_i u_{t−i} + e_t − Σ θ_j e_{t−j}, so θ_j = −(coefficient
+ * of ê_{t−j}). u is the mean-removed series; missing values count as zero deviations.
+ */
+import { solveNormalEquations } from './leastSquares';
+import { sampleAutocovariance } from './sampleAutocovariance';
+
+/** Yule–Walker AR(m) coefficients by the Durbin–Levinson recursion (Durbin 1960). */
+export function yuleWalker(gamma: Float64Array, m: number): Float64Array {
+  const phi = new Float64Array(m);
+  const prev = new Float64Array(m);
+  let v = gamma[0];
+  for (let k = 0; k < m; k++) {
+    if (!(v > 0)) break;
+    let num = gamma[k + 1];
+    for (let j = 0; j < k; j++) num -= phi[j] * gamma[k - j];
+    const pk = num / v;
+    for (let j = 0; j < k; j++) prev[j] = phi[j];
+    for (let j = 0; j < k; j++) phi[j] = prev[j] - pk * prev[k - 1 - j];
+    phi[k] = pk;
+    v *= 1 - pk * pk;
+  }
+  return phi;
+}
+
+export function hannanRissanen(u: Float64Array, p: number, q: number): { ar: number[]; ma: number[] } | null {
+  const n = u.length;
+  const x = new Float64Array(n);
+  for (let t = 0; t < n; t++) x[t] = Number.isNaN(u[t]) ? 0 : u[t];
+  const gamma = sampleAutocovariance(x, Math.min(n - 1, 40), false);
+  if (!(gamma[0] > 0)) return null;
+  if (q === 0) {
+    // Pure AR: Yule–Walker directly (the second stage would only repeat the regression).
+    const phi = yuleWalker(gamma, p);
+    return { ar: Array.from(phi), ma: [] };
+  }
+  const m = Math.max(p + q + 1, Math.min(Math.floor(n / 4), Math.ceil(10 * Math.log10(n)), 30));
+  if (m >= n - 1) return null;
+  const longAr = yuleWalker(sampleAutocovariance(x, m, false), m);
+  const e = new Float64Array(n);
+  for (let t = m; t < n; t++) {
+    let s = x[t];
+    for (let j = 0; j < m; j++) s -= longAr[j] * x[t - 1 - j];
+    e[t] = s;
+  }
+  const k = p + q;
+  const start = m + q;
+  if (n - start <= k + 1) return null;
+  const xtx = new Float64Array(k * k);
+  const xty = new Float64Array(k);
+  const row = new Float64Array(k);
+  for (let t = start; t < n; t++) {
+    for (let i = 0; i < p; i++) row[i] = x[t - 1 - i];
+    for (let j = 0; j < q; j++) row[p + j] = e[t - 1 - j];
+    for (let i = 0; i < k; i++) {
+      xty[i] += row[i] * x[t];
+      for (let j = 0; j < k; j++) xtx[i * k + j] += row[i] * row[j];
+    }
+  }
+  const b = solveNormalEquations(xtx, xty, k);
+  if (!b) return null;
+  const ar: number[] = [];
+  const ma: number[] = [];
+  for (let i = 0; i < p; i++) ar.push(b[i]);
+  for (let j = 0; j < q; j++) ma.push(-b[p + j]);
+  return { ar, ma };
+}

@@ -1,0 +1,30 @@
+/**
+ * Sample autocovariances c_k = (1/n) Σ_{t=k+1..n} (x_t − x̄)(x_{t−k} − x̄), k = 0..maxLag, the
+ * usual biased estimator (Box & Jenkins 1976, §2.1.4), over observed points only (NaN = missing;
+ * pairs with a missing member are skipped, n counts the observed points).
+ */
+export function sampleAutocovariance(x: ArrayLike<number>, maxLag: number, demean = true): Float64Array {
+  const n = x.length;
+  let sum = 0;
+  let count = 0;
+  for (let t = 0; t < n; t++) {
+    const v = x[t];
+    if (!Number.isNaN(v)) {
+      sum += v;
+      count++;
+    }
+  }
+  const mean = demean && count > 0 ? sum / count : 0;
+  const out = new Float64Array(maxLag + 1);
+  if (count === 0) return out;
+  for (let k = 0; k <= maxLag; k++) {
+    let s = 0;
+    for (let t = k; t < n; t++) {
+      const a = x[t];
+      const b = x[t - k];
+      if (!Number.isNaN(a) && !Number.isNaN(b)) s += (a - mean) * (b - mean);
+    }
+    out[k] = s / count;
+  }
+  return out;
+}

@@ -1,0 +1,214 @@
+/**
+ * The search for the maximum of the concentrated likelihood over stationary, invertible
+ * (φ, θ), in the unconstrained coordinates u with partial autocorrelations π = tanh(u) (Jones 1980;
+ * Monahan 1984). ARMA likelihoods are often multimodal (an AR-led and an MA-led optimum, or an
+ * optimum with a near-common AR/MA factor in a far corner of the π-cube), so BFGS runs from
+ * several starts and the best optimum is kept:
+ *   - Hannan–Rissanen (1982) two-stage regression; zero; the Yule–Walker AR(p) with θ = 0; an
+ *     AR-led corner (π_1 = 0.9); the Hannan–Rissanen MA(q) with φ = 0;
+ *   - for p + q ≥ 5, the optimum of ARMA(p−1, q−1) multiplied on both sides by a common factor
+ *     (1 − cz) (which leaves the likelihood unchanged, so the search starts at the lower-order
+ *     optimum and moves away from it), and the best points of a Halton (1960) screening design.
+ * A later start that enters the incumbent's basin (within 0.05 in u, not better) is stopped.
+ */
+import { bfgsMinimize } from './bfgs';
+import { hannanRissanen } from './hannanRissanen';
+import { ArmaLikelihood } from './kalmanLikelihood';
+import { coefficientsToUnconstrained, unconstrainedToCoefficients } from './partialAutocorrelations';
+
+const ABANDON_RADIUS = 0.05;
+const NESTED_FROM = 5;
+const SCREEN_FROM = 5;
+const SCREEN_N = 128;
+const SCREEN_KEEP = 6;
+const COMMON_FACTORS = [-0.9, -0.6, -0.3, 0.3, 0.6, 0.9];
+
+export interface SearchResult {
+  lik: ArmaLikelihood;
+  ar: number[];
+  ma: number[];
+  value: number;
+  converged: boolean;
+}
+
+function distinctPush(starts: Float64Array[], x: Float64Array): void {
+  if (x.some((v) => !Number.isFinite(v))) return;
+  for (const s of starts) {
+    let diff = 0;
+    for (let i = 0; i < x.length; i++) diff = Math.max(diff, Math.abs(s[i] - x[i]));
+    if (diff < 1e-3) return;
+  }
+  starts.push(x);
+}
+
+function toUnconstrained(ar: number[], ma: number[]): Float64Array | null {
+  const ua = ar.length > 0 ? coefficientsToUnconstrained(ar, 0.98) : [];
+  const um = ma.length > 0 ? coefficientsToUnconstrained(ma, 0.98) : [];
+  if (!ua || !um) return null;
+  return Float64Array.from([...ua, ...um]);
+}
+
+/** Multiply 1 − Σ c_i z^i by (1 − f z) and return the new c. */
+function withFactor(coef: number[], f: number): number[] {
+  const out = new Array<number>(coef.length + 1).fill(0);
+  for (let i = 0; i < coef.length; i++) out[i] += coef[i];
+  out[0] += f;
+  for (let i = 0; i < coef.length; i++) out[i + 1] -= f * coef[i];
+  return out;
+}
+
+function basicStarts(u: Float64Array, p: number, q: number): Float64Array[] {
+  const starts: Float64Array[] = [];
+  const push = (ar: number[], ma: number[]): void => {
+    const x = toUnconstrained(ar, ma);
+    if (x) distinctPush(starts, x);
+  };
+  const hr = hannanRissanen(u, p, q);
+  if (hr) {
+    let ar = hr.ar;
+    let ma = hr.ma;
+    // Shrink towards zero until the start is stationary and invertible.
+    for (let k = 0; k < 20 && !toUnconstrained(ar, ma); k++) {
+      ar = ar.map((v) => v * 0.8);
+      ma = ma.map((v) => v * 0.8);
+    }
+    push(ar, ma);
+  }
+  const zeroAr = new Array<number>(p).fill(0);
+  const zeroMa = new Array<number>(q).fill(0);
+  push(zeroAr, zeroMa);
+  if (p > 0) {
+    const yw = hannanRissanen(u, p, 0);
+    if (yw) push(yw.ar, zeroMa);
+    const near = new Array<number>(p).fill(0);
+    near[0] = 0.9;
+    push(near, zeroMa);
+  }
+  if (q > 0) {
+    const hm = hannanRissanen(u, 0, q);
+    if (hm) push(zeroAr, hm.ma);
+  }
+  return starts;
+}
+
+const PRIMES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29];
+
+/** Halton (1960) low-discrepancy point i in dimension m, each coordinate in (0, 1). */
+function halton(i: number, m: number, out: Float64Array): void {
+  for (let j = 0; j < m; j++) {
+    const b = PRIMES[j];
+    let f = 1;
+    let r = 0;
+    let k = i;
+    while (k > 0) {
+      f /= b;
+      r += f * (k % b);
+      k = Math.floor(k / b);
+    }
+    out[j] = r;
+  }
+}
+
+function screenedStarts(objective: (x: Float64Array) => number, m: number): Float64Array[] {
+  const z = new Float64Array(m);
+  const scored: { x: Float64Array; v: number }[] = [];
+  for (let i = 1; i <= SCREEN_N; i++) {
+    halton(i, m, z);
+    const x = new Float64Array(m);
+    for (let j = 0; j < m; j++) x[j] = Math.atanh(0.97 * (2 * z[j] - 1));
+    const v = objective(x);
+    if (Number.isFinite(v)) scored.push({ x, v });
+  }
+  scored.sort((a, b) => a.v - b.v);
+  return scored.slice(0, SCREEN_KEEP).map((s) => s.x);
+}
+
+export function searchOptimum(
+  u: Float64Array,
+  xcols: Float64Array[],
+  p: number,
+  q: number,
+  maxIterations: number,
+  cache: Map<string, SearchResult | null> = new Map(),
+): SearchResult | null {
+  const key = `${p},${q}`;
+  if (cache.has(key)) return cache.get(key) ?? null;
+  const result = search(u, xcols, p, q, maxIterations, cache);
+  cache.set(key, result);
+  return result;
+}
+
+function search(
+  u: Float64Array,
+  xcols: Float64Array[],
+  p: number,
+  q: number,
+  maxIterations: number,
+  cache: Map<string, SearchResult | null>,
+): SearchResult | null {
+  const lik = new ArmaLikelihood(u, xcols, p, q);
+  const ar = new Float64Array(p);
+  const ma = new Float64Array(q);
+  const work = new Float64Array(Math.max(p, q, 1));
+  const toCoefficients = (x: ArrayLike<number>): void => {
+    unconstrainedToCoefficients(x, 0, p, ar, 0, work);
+    unconstrainedToCoefficients(x, p, q, ma, 0, work);
+  };
+  const objective = (x: Float64Array): number => {
+    // Keep partial autocorrelations away from ±1 in floating point (tanh(19) rounds to 1).
+    for (let i = 0; i < x.length; i++) if (Math.abs(x[i]) > 18) return Number.POSITIVE_INFINITY;
+    toCoefficients(x);
+    return lik.profile(ar, ma);
+  };
+
+  const starts = basicStarts(u, p, q);
+  if (p + q >= NESTED_FROM && p > 0 && q > 0) {
+    const lower = searchOptimum(u, xcols, p - 1, q - 1, maxIterations, cache);
+    if (lower) {
+      for (const f of COMMON_FACTORS) {
+        const x = toUnconstrained(withFactor(lower.ar, f), withFactor(lower.ma, f));
+        if (x) distinctPush(starts, x);
+      }
+    }
+  }
+  if (p + q >= NESTED_FROM) {
+    // The optima of the two neighbours one order down, padded with a zero coefficient.
+    for (const [pl, ql] of [
+      [p - 1, q],
+      [p, q - 1],
+    ]) {
+      if (pl < 0 || ql < 0) continue;
+      const lower = searchOptimum(u, xcols, pl, ql, maxIterations, cache);
+      if (!lower) continue;
+      const x = toUnconstrained([...lower.ar, ...(pl < p ? [0] : [])], [...lower.ma, ...(ql < q ? [0] : [])]);
+      if (x) distinctPush(starts, x);
+    }
+  }
+  if (p + q >= SCREEN_FROM) for (const x of screenedStarts(objective, p + q)) distinctPush(starts, x);
+
+  let best: { x: Float64Array; value: number; converged: boolean } | null = null;
+  for (const start of starts) {
+    const incumbent = best;
+    const res = bfgsMinimize(objective, start, {
+      maxIterations,
+      forward: true,
+      step: 1e-6,
+      gradientTolerance: 1e-6,
+      valueTolerance: 1e-10,
+      abandon: incumbent
+        ? (x, v) => {
+            if (v < incumbent.value) return false;
+            let dist = 0;
+            for (let i = 0; i < x.length; i++) dist = Math.max(dist, Math.abs(x[i] - incumbent.x[i]));
+            return dist < ABANDON_RADIUS;
+          }
+        : undefined,
+    });
+    if (Number.isFinite(res.value) && (!best || res.value < best.value - 1e-12)) {
+      best = { x: res.x, value: res.value, converged: res.converged };
+    }
+  }
+  if (!best) return null;
+  toCoefficients(best.x);
+  return { lik, ar: Array.from(ar), ma: Array.from(ma), value: best.value, converged: best.converged };
+}
