@@ -1,0 +1,158 @@
+/**
+ * `fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H]
+ *      [--date-column NAME] [--value-column NAME]`
+ * Fits an ARIMA model to each weekly series and prints one JSON object per file per line (JSON
+ * Lines). Without --order the model is ARMA(1,0,1) with a mean. All files are fitted in this one
+ * process (the JIT warms up once). A file that cannot be read is reported on stderr with its line
+ * and field; the other files are still fitted, and the exit code is 1.
+ */
+import { type ArmaFit, fitArma, forecastArma, forecastIntervals } from '../../core/arma';
+import { CsvInputError, readWeeklyCsv } from './fit-csv';
+
+export interface FitCommandOptions {
+  order: { p: number; d: number; q: number } | null;
+  includeMean: boolean | undefined;
+  horizon: number;
+  dateColumn: string;
+  valueColumn: string;
+}
+
+const USAGE =
+  'usage: npm run -s cli -- fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H] ' +
+  '[--date-column NAME] [--value-column NAME]\n';
+
+/** The model for one series. The one place that decides which model a series gets. */
+export function fitSeries(values: Float64Array, options: FitCommandOptions): ArmaFit {
+  const order = options.order ?? { p: 1, d: 0, q: 1 };
+  return fitArma(values, { ...order, includeMean: options.includeMean });
+}
+
+function num(v: number): number | null {
+  return Number.isFinite(v) ? v : null;
+}
+
+function nums(v: ArrayLike<number>): (number | null)[] {
+  return Array.from(v, num);
+}
+
+/** The JSON line for one fitted file. */
+export function fitRecord(file: string, n: number, fit: ArmaFit, horizon: number): string {
+  const fc = forecastArma(fit, horizon);
+  const iv = forecastIntervals(fc.mean, fc.se);
+  const forecast = [];
+  for (let h = 0; h < horizon; h++) {
+    forecast.push({
+      step: h + 1,
+      mean: num(fc.mean[h]),
+      se: num(fc.se[h]),
+      lower80: num(iv.lower80[h]),
+      upper80: num(iv.upper80[h]),
+      lower95: num(iv.lower95[h]),
+      upper95: num(iv.upper95[h]),
+    });
+  }
+  return JSON.stringify({
+    file,
+    n,
+    order: fit.order,
+    mean: fit.mean === null ? null : num(fit.mean),
+    ar: nums(fit.ar),
+    ma: nums(fit.ma),
+    sigma2: num(fit.sigma2),
+    loglik: num(fit.loglik),
+    aic: num(fit.aic),
+    aicc: num(fit.aicc),
+    bic: num(fit.bic),
+    converged: fit.converged,
+    stderr: {
+      ar: nums(fit.stderr.ar),
+      ma: nums(fit.stderr.ma),
+      mean: fit.stderr.mean === null ? null : num(fit.stderr.mean),
+      xreg: nums(fit.stderr.xreg),
+    },
+    flags: fit.flags,
+    forecast,
+    signConvention: 'ma-minus',
+  });
+}
+
+class UsageError extends Error {}
+
+export function parseFitArgs(args: string[]): { files: string[]; options: FitCommandOptions } {
+  const files: string[] = [];
+  const options: FitCommandOptions = {
+    order: null,
+    includeMean: undefined,
+    horizon: 12,
+    dateColumn: 'week',
+    valueColumn: 'qty',
+  };
+  const value = (i: number, name: string): string => {
+    const v = args[i + 1];
+    if (v === undefined) throw new UsageError(`${name} needs a value`);
+    return v;
+  };
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i];
+    if (a === '--order') {
+      const text = value(i++, a);
+      const parts = text.split(',').map((s) => Number(s.trim()));
+      const ok =
+        parts.length === 3 &&
+        parts.every((v) => Number.isInteger(v) && v >= 0) &&
+        parts[0] <= 5 &&
+        parts[1] <= 2 &&
+        parts[2] <= 5;
+      if (!ok) throw new UsageError(`--order '${text}' must be p,d,q with p, q in 0…5 and d in 0…2`);
+      options.order = { p: parts[0], d: parts[1], q: parts[2] };
+    } else if (a === '--no-mean') options.includeMean = false;
+    else if (a === '--horizon') {
+      const text = value(i++, a);
+      const h = Number(text);
+      if (!Number.isInteger(h) || h < 1 || h > 520) {
+        throw new UsageError(`--horizon '${text}' must be a whole number of weeks from 1 to 520`);
+      }
+      options.horizon = h;
+    } else if (a === '--date-column') options.dateColumn = value(i++, a);
+    else if (a === '--value-column') options.valueColumn = value(i++, a);
+    else if (a.startsWith('--')) throw new UsageError(`unknown option '${a}'`);
+    else files.push(a);
+  }
+  if (files.length === 0) throw new UsageError('no CSV file given');
+  return { files, options };
+}
+
+export default async function fit(args: string[]): Promise<number> {
+  let parsed: ReturnType<typeof parseFitArgs>;
+  try {
+    parsed = parseFitArgs(args);
+  } catch (err) {
+    if (err instanceof UsageError) {
+      process.stderr.write(`fit: ${err.message}\n${USAGE}`);
+      return 2;
+    }
+    throw err;
+  }
+  const { files, options } = parsed;
+  let failed = 0;
+  let out: string[] = [];
+  const flush = (): void => {
+    if (out.length) process.stdout.write(`${out.join('\n')}\n`);
+    out = [];
+  };
+  for (const file of files) {
+    try {
+      const series = readWeeklyCsv(file, options);
+      const model = fitSeries(series.values, options);
+      out.push(fitRecord(file, series.values.length, model, options.horizon));
+    } catch (err) {
+      if (!(err instanceof CsvInputError)) throw err;
+      flush();
+      process.stderr.write(`fit: ${err.message}\n`);
+      failed++;
+    }
+    if (out.length >= 256) flush();
+  }
+  flush();
+  return failed > 0 ? 1 : 0;
+}
