@@ -7,6 +7,8 @@
  *   y_t − μ = φ_1(y_{t−1} − μ) + … + φ_p(y_{t−p} − μ) + ε_t − θ_1 ε_{t−1} − … − θ_q ε_{t−q}.
  */
 
+import type { Diagnostics } from '../diagnose/diagnoseChoice';
+
 export type ServiceKind = 'cycle' | 'fill';
 
 /** One item's planning settings, as the item master (or the workspace defaults) gives them. */
@@ -69,6 +71,8 @@ export interface ForecastPoint {
   upper80: number;
   lower95: number;
   upper95: number;
+  /** Set when a planner adjustment changed this week: the model's own mean and what was applied. */
+  adjustment?: { baseMean: number; applied: string[] };
 }
 
 /** Planner decisions the next run must respect (see app/store overrides and the audit log). */
@@ -160,4 +164,68 @@ export interface OrderLine {
   /** The variance source: 'model' (ARMA ψ-weights), 'intermittent-method' or 'fallback'. */
   varianceSource: 'model' | 'intermittent-method' | 'fallback';
   explanation: string;
+}
+
+/** The fitted model of an item, summarised as plain data (core/plan/planItem). */
+export interface ModelSummary {
+  kind: 'arma' | 'intermittent' | 'fallback';
+  /** Plain words, e.g. "ARIMA(1,0,1) with mean and 2 annual harmonic pairs". */
+  label: string;
+  order: ModelOrder;
+  seasonalHarmonics: number;
+  includeMean: boolean;
+  ar: number[];
+  ma: number[];
+  /** Mean (d = 0) or drift (d = 1) of the ARMA part; the intermittent rate per week; the fallback level. */
+  mean: number | null;
+  /** Innovation variance; for intermittent and fallback items the one-step error variance used. */
+  sigma2: number | null;
+  aicc: number | null;
+  loglik: number | null;
+  converged: boolean | null;
+  arRootModuli: number[];
+  maRootModuli: number[];
+}
+
+export interface SelectionSummary {
+  search: 'stepwise' | 'grid' | 'forced' | 'none';
+  candidates: {
+    order: ModelOrder;
+    seasonalHarmonics: number;
+    includeMean: boolean;
+    aicc: number | null;
+    passedOver?: string;
+  }[];
+  reason: string;
+}
+
+/** Realised accuracy of forecasts earlier runs made for weeks now observed (Trigg 1964). */
+export interface ForecastTracking {
+  /** Number of past forecasts matched with an observed week. */
+  count: number;
+  /** Mean error (actual − forecast); positive means the forecasts ran low. */
+  bias: number;
+  /** Smoothed error / smoothed absolute error after the last week, in [−1, 1]. */
+  trackingSignal: number;
+  /** |signal| above this is flagged (about 5% by chance for unbiased errors). */
+  limit: number;
+  alpha: number;
+}
+
+/** Everything planning one item produced: what the run stores and the screens show. */
+export interface ItemPlan {
+  sku: string;
+  model: ModelSummary;
+  selection: SelectionSummary;
+  demandClass: string;
+  /** Ljung–Box, roots, normality, outliers, … (core/diagnose/diagnoseChoice), null if it failed. */
+  diagnostics: Diagnostics | null;
+  /** One-step fitted values aligned with the history, null where undefined. */
+  fitted: (number | null)[];
+  forecast: ForecastPoint[];
+  /** Sample ACF of the residuals at lags 1…lags, with the ±1.96/√n band. */
+  residualAcf: { lags: number; acf: number[]; band: number };
+  tracking: ForecastTracking | null;
+  flags: Flag[];
+  order: OrderLine;
 }

@@ -175,8 +175,13 @@ export function planOrderLine(input: OrderLineInput): OrderLine {
     shelfLifeLimit = oq.shelfLifeLimit;
     capsApplied.push(...oq.applied);
     text.push(...oq.steps);
-    if (qty > 0)
-      text.push(`Suggested order: ${q(qty)}${unit} (${casePacks} case pack${casePacks === 1 ? '' : 's'}).`);
+    if (qty > 0) {
+      text.push(
+        pack > 1
+          ? `Suggested order: ${q(qty)}${unit} (${casePacks} case pack${casePacks === 1 ? '' : 's'}).`
+          : `Suggested order: ${q(qty)}${unit}.`,
+      );
+    }
   }
 
   return {

@@ -63,10 +63,12 @@ export function orderQuantity(input: OrderQuantityInput): OrderQuantity {
   );
   const rounded = packRound(raw, pack, moq);
   const upPacks = ceilPacks(raw, pack);
-  if (upPacks * pack !== raw && raw > 0) {
+  if (rounded.qty > 0 && upPacks * pack !== raw) {
     applied.push('case-pack');
     steps.push(
-      `Rounded up to whole case packs of ${n(pack)}: ${upPacks} × ${n(pack)} = ${n(upPacks * pack)}.`,
+      pack === 1
+        ? `Rounded up to whole units: ${n(upPacks)}.`
+        : `Rounded up to whole case packs of ${n(pack)}: ${upPacks} × ${n(pack)} = ${n(upPacks * pack)}.`,
     );
   }
   if (rounded.packs > upPacks) {
@@ -129,10 +131,11 @@ function n(x: number): string {
 
 /**
  * Steps 3 and 4 alone, for the policy simulation's inner loop: a positive quantity rounded up to
- * whole case packs, then raised to the minimum order in whole packs; zero stays zero.
+ * whole case packs, then raised to the minimum order in whole packs; zero (or below 0.001) stays zero.
  */
 export function packRound(raw: number, casePack: number, moq: number): { qty: number; packs: number } {
-  if (!(raw > 0)) return { qty: 0, packs: 0 };
+  // Under a thousandth of a unit is floating-point noise from the levels, not a need to order.
+  if (!(raw > 1e-3)) return { qty: 0, packs: 0 };
   let packs = ceilPacks(raw, casePack);
   if (packs * casePack < moq) packs = ceilPacks(moq, casePack);
   return { qty: packs * casePack, packs };
