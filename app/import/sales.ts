@@ -189,6 +189,7 @@ export class SalesCollector {
     for (let i = 0; i < this.n; i++) order[i] = i;
     const keys = this.keys;
     order.sort((a, b) => keys[a] - keys[b]);
+    const isoOf = new Map<number, string>();
     const stats: SalesWriteStats = { inserted: 0, replaced: 0, changed: 0, zeroFilled: 0, changes: [] };
     const lastWeek = this.dated ? weekStartOf(this.maxDay, this.ctx.weekStartDay) : 0;
     const fileFirstWeek = this.dated ? weekStartOf(this.minDay, this.ctx.weekStartDay) : 0;
@@ -200,7 +201,8 @@ export class SalesCollector {
       const itemId = ids.get(sku)!;
       const existing = known.has(sku) ? writer.existing(itemId) : null;
       const put = (week: number, qty: number | null, out: boolean) => {
-        const ws = formatIsoDate(week);
+        let ws = isoOf.get(week);
+        if (ws === undefined) isoOf.set(week, (ws = formatIsoDate(week)));
         const prev = existing?.get(ws);
         if (prev) {
           stats.replaced++;
@@ -242,6 +244,7 @@ export class SalesCollector {
         }
       }
     }
+    writer.flush();
     return stats;
   }
 }

@@ -69,7 +69,6 @@ CREATE TABLE weekly_demand (
   batch_id INTEGER NOT NULL REFERENCES import_batches (id),
   PRIMARY KEY (item_id, week_start)
 ) WITHOUT ROWID;
-CREATE INDEX weekly_demand_week ON weekly_demand (week_start);
 
 CREATE TABLE inventory_positions (
   item_id INTEGER PRIMARY KEY REFERENCES items (id) ON DELETE CASCADE,

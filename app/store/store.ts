@@ -8,7 +8,7 @@
 import { closeSync, existsSync, openSync, readSync, statSync } from 'node:fs';
 import { basename } from 'node:path';
 import Database from 'better-sqlite3';
-import { MIGRATIONS, SCHEMA_VERSION } from './migrations';
+import { MIGRATIONS, type Migration } from './migrations';
 
 /** 'PROV' in ASCII: marks a SQLite file as a Provision store (PRAGMA application_id). */
 export const APPLICATION_ID = 0x50524f56;
@@ -26,6 +26,8 @@ export interface OpenOptions {
   /** Create the file when it does not exist (default false). */
   create?: boolean;
   readonly?: boolean;
+  /** The migration list (default MIGRATIONS); tests pass longer or shorter lists to exercise upgrades. */
+  migrations?: readonly Migration[];
 }
 
 export class StoreError extends Error {
@@ -94,7 +96,8 @@ function describeSqliteError(path: string, err: unknown): StoreError {
   return new StoreError(`${path}: cannot open the store: ${msg}`, path);
 }
 
-function migrate(db: Database.Database, path: string): void {
+function migrate(db: Database.Database, path: string, migrations: readonly Migration[]): void {
+  const SCHEMA_VERSION = migrations.length;
   const version = db.pragma('user_version', { simple: true }) as number;
   const appId = db.pragma('application_id', { simple: true }) as number;
   if (version > SCHEMA_VERSION) {
@@ -124,7 +127,7 @@ function migrate(db: Database.Database, path: string): void {
     db.prepare('VACUUM INTO ?').run(backup);
   }
   const run = db.transaction(() => {
-    for (let v = version; v < SCHEMA_VERSION; v++) MIGRATIONS[v].up(db);
+    for (let v = version; v < SCHEMA_VERSION; v++) migrations[v].up(db);
     db.pragma(`application_id = ${APPLICATION_ID}`);
     db.pragma(`user_version = ${SCHEMA_VERSION}`);
   });
@@ -152,8 +155,11 @@ export function openStore(path: string, options: OpenOptions = {}): Store {
     if (!options.readonly) db.pragma('journal_mode = WAL');
     db.pragma('foreign_keys = ON');
     db.pragma('synchronous = NORMAL');
-    if (!options.readonly) migrate(db, path);
-    else if ((db.pragma('user_version', { simple: true }) as number) !== SCHEMA_VERSION) {
+    // A 64 MB page cache keeps a large import's B-tree pages in memory (default is 2 MB).
+    db.pragma('cache_size = -65536');
+    const migrations = options.migrations ?? MIGRATIONS;
+    if (!options.readonly) migrate(db, path, migrations);
+    else if ((db.pragma('user_version', { simple: true }) as number) !== migrations.length) {
       throw new StoreError(`${path}: the store needs an upgrade; open it for writing once.`, path);
     }
     // Touch every table's root page: a damaged file fails here, with its name, not in mid-import.
