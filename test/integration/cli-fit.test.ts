@@ -1,0 +1,131 @@
+/**
+ * `fit` through the real command line in a child process (issue 2, command line): JSON Lines with
+ * the fields the issue lists, errors naming file, line and field, other files still reported.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { simulateArma } from '../../core/arma';
+
+const root = join(import.meta.dirname, '..', '..');
+let dir = '';
+
+function csv(values: (number | null)[], header = 'week,qty', start = Date.UTC(2023, 0, 2)): string {
+  const lines = [header];
+  values.forEach((v, i) => {
+    const d = new Date(start + i * 7 * 86400000).toISOString().slice(0, 10);
+    lines.push(`${d},${v === null ? '' : v.toFixed(2)}`);
+  });
+  return `${lines.join('\n')}\n`;
+}
+
+function runFit(args: string[]): { status: number | null; stdout: string; stderr: string } {
+  const r = spawnSync(process.execPath, ['--import', 'tsx', join(root, 'app/cli/main.ts'), 'fit', ...args], {
+    cwd: root,
+    encoding: 'utf8',
+  });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'provision-cli-fit-'));
+  const y = Array.from(simulateArma({ ar: [0.6], ma: [0.3], sigma2: 4, mean: 60 }, 104, 3));
+  const gappy: (number | null)[] = [...y];
+  gappy[10] = null;
+  writeFileSync(join(dir, 'good.csv'), csv(y));
+  writeFileSync(join(dir, 'gappy.csv'), csv(gappy));
+  writeFileSync(join(dir, 'renamed.csv'), csv(y, 'date,units'));
+  writeFileSync(join(dir, 'badnum.csv'), 'week,qty\n2023-01-02,5\n2023-01-09,12x\n');
+  writeFileSync(join(dir, 'baddate.csv'), 'week,qty\n2023-01-02,5\n2023-13-09,12\n');
+});
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('npm run cli -- fit', () => {
+  it('prints one JSON line per file with the fields of the issue (default ARMA(1,0,1) with mean)', () => {
+    const r = runFit([join(dir, 'good.csv'), join(dir, 'gappy.csv'), '--horizon', '5']);
+    expect(r.status).toBe(0);
+    const lines = r.stdout.trim().split('\n');
+    expect(lines.length).toBe(2);
+    const rec = JSON.parse(lines[0]);
+    expect(Object.keys(rec)).toEqual([
+      'file',
+      'n',
+      'order',
+      'mean',
+      'ar',
+      'ma',
+      'sigma2',
+      'loglik',
+      'aic',
+      'aicc',
+      'bic',
+      'converged',
+      'stderr',
+      'flags',
+      'forecast',
+      'signConvention',
+    ]);
+    expect(rec.order).toEqual({ p: 1, d: 0, q: 1 });
+    expect(rec.n).toBe(104);
+    expect(rec.signConvention).toBe('ma-minus');
+    expect(rec.forecast.length).toBe(5);
+    expect(Object.keys(rec.forecast[0])).toEqual([
+      'step',
+      'mean',
+      'se',
+      'lower80',
+      'upper80',
+      'lower95',
+      'upper95',
+    ]);
+    expect(rec.forecast[0].lower95).toBeLessThan(rec.forecast[0].lower80);
+    expect(typeof rec.mean).toBe('number');
+    // The gap is a missing week: 103 observed of 104.
+    const gap = JSON.parse(lines[1]);
+    expect(gap.n).toBe(104);
+    expect(gap.aic).toBeCloseTo(-2 * gap.loglik + 2 * 4, 8);
+  });
+
+  it('honours --order, --no-mean and renamed columns', () => {
+    const r = runFit([
+      join(dir, 'renamed.csv'),
+      '--order',
+      '2,1,1',
+      '--no-mean',
+      '--date-column',
+      'date',
+      '--value-column',
+      'units',
+    ]);
+    expect(r.status).toBe(0);
+    const rec = JSON.parse(r.stdout);
+    expect(rec.order).toEqual({ p: 2, d: 1, q: 1 });
+    expect(rec.mean).toBeNull();
+    expect(rec.ar.length).toBe(2);
+    expect(rec.forecast.length).toBe(12);
+  });
+
+  it('names file, line and field on bad input, exits non-zero and still reports the other files', () => {
+    const r = runFit([
+      join(dir, 'badnum.csv'),
+      join(dir, 'missing.csv'),
+      join(dir, 'good.csv'),
+      join(dir, 'baddate.csv'),
+    ]);
+    expect(r.status).toBe(1);
+    expect(r.stdout.trim().split('\n').length).toBe(1);
+    expect(r.stderr).toContain(`${join(dir, 'badnum.csv')}: line 3: field 'qty': '12x' is not a number`);
+    expect(r.stderr).toContain(`${join(dir, 'missing.csv')}: cannot read the file`);
+    expect(r.stderr).toContain(
+      `${join(dir, 'baddate.csv')}: line 3: field 'week': '2023-13-09' is not a date`,
+    );
+  });
+
+  it('rejects a bad --order with a usage message', () => {
+    const r = runFit([join(dir, 'good.csv'), '--order', '7,0,1']);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain('--order');
+  });
+});
