@@ -122,8 +122,12 @@ describe('parameter recovery (simulated series of length 2,000 recover within th
       const y = simulateArma({ ar: c.ar, ma: c.ma, sigma2: 4, mean: 50 }, 2000, c.seed);
       const fit = fitArma(y, { p: c.ar.length, d: 0, q: c.ma.length });
       expect(fit.fallback).toBeNull();
-      c.ar.forEach((v, i) => expect(Math.abs(fit.ar[i] - v)).toBeLessThan(3 * fit.stderr.ar[i]));
-      c.ma.forEach((v, i) => expect(Math.abs(fit.ma[i] - v)).toBeLessThan(3 * fit.stderr.ma[i]));
+      c.ar.forEach((v, i) => {
+        expect(Math.abs(fit.ar[i] - v)).toBeLessThan(3 * fit.stderr.ar[i]);
+      });
+      c.ma.forEach((v, i) => {
+        expect(Math.abs(fit.ma[i] - v)).toBeLessThan(3 * fit.stderr.ma[i]);
+      });
       expect(Math.abs((fit.mean ?? 0) - 50)).toBeLessThan(3 * (fit.stderr.mean ?? 0));
       expect(fit.sigma2 / 4).toBeGreaterThan(0.9);
       expect(fit.sigma2 / 4).toBeLessThan(1.1);
