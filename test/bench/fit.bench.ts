@@ -1,0 +1,149 @@
+/**
+ * Speed of `fit` end to end through the CLI (issue 2, acceptance 4): for ARMA(2,0,2) and
+ * ARMA(1,0,1), 1,000 simulated 156-week CSV files fitted in one call, minus the same call on one
+ * file, divided by 999 — reading, fitting, standard errors, 12-step forecasts and output included.
+ * Where Rscript is installed, base R's stats::arima(method = "ML") is timed in a plain loop over the
+ * same series (test/bench/fit-arima.R), and the share of series where our log-likelihood is at
+ * least R's − 1e-6 is printed. Each timing is the fastest of a few runs (the machine is shared).
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { createRng, simulateArma } from '../../core/arma';
+import { unconstrainedToCoefficients } from '../../core/arma/partialAutocorrelations';
+
+const root = join(import.meta.dirname, '..', '..');
+const FILES = Number(process.env.FIT_BENCH_FILES ?? 1000);
+const WEEKS = 156;
+const REPEATS = Number(process.env.FIT_BENCH_REPEATS ?? 3);
+
+/** A random stationary, invertible model: partial autocorrelations uniform on (−0.8, 0.8). */
+function randomModel(
+  p: number,
+  q: number,
+  rng: ReturnType<typeof createRng>,
+): { ar: number[]; ma: number[] } {
+  const draw = (k: number): number[] => {
+    const u = Array.from({ length: k }, () => Math.atanh(1.6 * (rng.uniform() - 0.5)));
+    const out = new Float64Array(k);
+    unconstrainedToCoefficients(u, 0, k, out, 0, new Float64Array(Math.max(k, 1)));
+    return Array.from(out);
+  };
+  return { ar: draw(p), ma: draw(q) };
+}
+
+function writeSeries(dir: string, p: number, q: number, seed: number): string[] {
+  const rng = createRng(seed);
+  const files: string[] = [];
+  const start = Date.UTC(2022, 0, 3);
+  const weeks = Array.from({ length: WEEKS }, (_, i) =>
+    new Date(start + i * 7 * 86400000).toISOString().slice(0, 10),
+  );
+  for (let i = 0; i < FILES; i++) {
+    const model = randomModel(p, q, rng);
+    const y = simulateArma({ ...model, sigma2: 100, mean: 200 }, WEEKS, rng);
+    const lines = ['week,qty'];
+    for (let t = 0; t < WEEKS; t++) lines.push(`${weeks[t]},${y[t].toFixed(2)}`);
+    const file = join(dir, `s${String(i).padStart(4, '0')}.csv`);
+    writeFileSync(file, `${lines.join('\n')}\n`);
+    files.push(file);
+  }
+  return files;
+}
+
+function timeCli(files: string[], order: string): { seconds: number; stdout: string } {
+  const t0 = process.hrtime.bigint();
+  const r = spawnSync(
+    process.execPath,
+    ['--import', 'tsx', join(root, 'app/cli/main.ts'), 'fit', ...files, '--order', order],
+    { cwd: root, encoding: 'utf8', maxBuffer: 1 << 30 },
+  );
+  const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
+  if (r.status !== 0) throw new Error(`fit exited ${r.status}: ${r.stderr}`);
+  return { seconds, stdout: r.stdout };
+}
+
+function hasRscript(): boolean {
+  return spawnSync('Rscript', ['--version'], { encoding: 'utf8' }).status === 0;
+}
+
+const base = mkdtempSync(join(tmpdir(), 'provision-fit-bench-'));
+const haveR = hasRscript();
+try {
+  for (const [p, q, seed] of [
+    [2, 2, 22],
+    [1, 1, 11],
+  ]) {
+    const order = `${p},0,${q}`;
+    const dir = join(base, `arma${p}${q}`);
+    mkdirSync(dir);
+    const files = writeSeries(dir, p, q, seed);
+    let bestMany = Number.POSITIVE_INFINITY;
+    let bestOne = Number.POSITIVE_INFINITY;
+    let out = '';
+    const perFile: number[] = [];
+    for (let r = 0; r < REPEATS; r++) {
+      const one = timeCli(files.slice(0, 1), order).seconds;
+      const many = timeCli(files, order);
+      bestOne = Math.min(bestOne, one);
+      bestMany = Math.min(bestMany, many.seconds);
+      perFile.push(((many.seconds - one) / (FILES - 1)) * 1000);
+      out = many.stdout;
+    }
+    const ours = ((bestMany - bestOne) / (FILES - 1)) * 1000;
+    const records = out
+      .trim()
+      .split('\n')
+      .map((l) => JSON.parse(l) as { loglik: number | null; converged: boolean; flags: string[] });
+    const notConverged = records.filter((r) => !r.converged).length;
+    process.stdout.write(
+      `ARMA(${order}) ${FILES} files x ${WEEKS} weeks: ours ${ours.toFixed(3)} ms per file ` +
+        `(one call ${bestMany.toFixed(2)} s, one-file call ${bestOne.toFixed(2)} s; runs: ${perFile
+          .map((v) => v.toFixed(3))
+          .join(', ')} ms); not converged ${notConverged}\n`,
+    );
+    if (haveR) {
+      const list = join(dir, 'files.txt');
+      writeFileSync(list, files.join('\n'));
+      const rOut = join(dir, 'r.txt');
+      const r = spawnSync(
+        'Rscript',
+        [join(root, 'test/bench/fit-arima.R'), list, String(p), '0', String(q), rOut],
+        {
+          encoding: 'utf8',
+        },
+      );
+      if (r.status !== 0) {
+        process.stdout.write(`  base R failed: ${r.stderr.slice(0, 400)}\n`);
+        continue;
+      }
+      const [elapsed, ...ll] = readFileSync(rOut, 'utf8').trim().split('\n');
+      const rMs = (Number(elapsed) / FILES) * 1000;
+      let atLeast = 0;
+      let compared = 0;
+      let above = 0;
+      ll.forEach((text, i) => {
+        const rl = Number(text);
+        const ol = records[i].loglik;
+        if (!Number.isFinite(rl)) {
+          atLeast++;
+          compared++;
+          return;
+        }
+        compared++;
+        if (ol !== null && ol >= rl - 1e-6) atLeast++;
+        if (ol !== null && ol > rl + 1e-3) above++;
+      });
+      process.stdout.write(
+        `  base R arima(method = "ML") ${rMs.toFixed(3)} ms per fit (plain loop, same series); ` +
+          `ours / R = ${(ours / rMs).toFixed(3)}; our loglik >= R's - 1e-6 on ${atLeast}/${compared} ` +
+          `(${((100 * atLeast) / compared).toFixed(1)}%), higher by > 1e-3 on ${above}\n`,
+      );
+    } else {
+      process.stdout.write('  Rscript not installed: no base R figure\n');
+    }
+  }
+} finally {
+  rmSync(base, { recursive: true, force: true });
+}
