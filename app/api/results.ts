@@ -6,8 +6,8 @@
  */
 import type { Flag } from '../../core/plan/types';
 import { orderCsv } from '../run/orderCsv';
-import { listStoredItems } from '../store/items';
 import {
+  getChosenModels,
   getItemRunResult,
   getLatestRun,
   getOrderLinesBySupplier,
@@ -16,6 +16,7 @@ import {
 } from '../store/runs';
 import type { Store } from '../store/store';
 import type { CandidateModel, Complex, DiagnosticLine, ItemResult, OrderLine } from './contract';
+import { polynomialRoots } from './polynomial-roots';
 
 export interface ItemSummary {
   model: string | null;
@@ -149,13 +150,12 @@ export function storeResults(store: Store): ResultsSource {
           });
         }
       }
-      // The chosen model's label per item (one read per item, once per run; cached with the summaries).
-      for (const it of listStoredItems(store)) {
-        const r = getItemRunResult(store, it.sku, run.id);
-        if (!r) continue;
-        const s = out.get(it.sku) ?? { model: null, flags: r.flags, orderQty: r.order?.orderQty ?? null };
-        s.model = r.model ? modelLabel(r.model) : r.status === 'failed' ? 'failed' : null;
-        out.set(it.sku, s);
+      // The chosen model's label per item, in one read.
+      for (const [sku, m] of getChosenModels(store, run.id)) {
+        const entry = out.get(sku);
+        if (!entry) continue;
+        entry.model = m ? modelLabel(m) : null;
+        if (m && m.status === 'failed') entry.model = 'failed';
       }
       return (summaryCache = out);
     },
@@ -195,10 +195,11 @@ export function storeResults(store: Store): ResultsSource {
         forecast: r.forecast,
         residualAcf: acf,
         residualCount: n,
-        // ±1.96/√n: approximate 95% limits of a white-noise sample ACF (Box & Jenkins 1970, §6.2).
-        acfBand: n > 0 ? 1.96 / Math.sqrt(n) : 0,
-        arRoots: roots(extra.arRoots),
-        maRoots: roots(extra.maRoots),
+        // ±1.96/√n: approximate 95% limits of a white-noise sample ACF (Box & Jenkins 1970, §6.2);
+        // the run stores the band it used.
+        acfBand: typeof extra.acfBand === 'number' ? extra.acfBand : n > 0 ? 1.96 / Math.sqrt(n) : 0,
+        arRoots: Array.isArray(extra.arRoots) ? roots(extra.arRoots) : polynomialRoots(nums(extra.ar)),
+        maRoots: Array.isArray(extra.maRoots) ? roots(extra.maRoots) : polynomialRoots(nums(extra.ma)),
         candidates,
         flags: r.flags,
         diagnostics: diagnosticLines(extra.diagnostics),

@@ -49,8 +49,12 @@ export function ItemDetailPanel({ sku }: { sku: string }) {
         <p className="muted">
           {s.supplier ?? 'no supplier'} · lead time {dec1(s.leadTimeWeeks)} weeks
           {s.leadTimeSdWeeks > 0 ? ` (± ${dec1(s.leadTimeSdWeeks)})` : ''} ·{' '}
-          {s.reviewPeriodWeeks === 0 ? 'continuous review' : `review every ${s.reviewPeriodWeeks} weeks`} ·
-          case pack {units(s.casePack)} · MOQ {units(s.moq)}
+          {s.reviewPeriodWeeks === 0
+            ? 'continuous review'
+            : s.reviewPeriodWeeks === 1
+              ? 'weekly review'
+              : `review every ${s.reviewPeriodWeeks} weeks`}{' '}
+          · case pack {units(s.casePack)} · MOQ {units(s.moq)}
           {s.serviceLevel !== null ? ` · target ${serviceLabel(s.serviceLevel, s.serviceKind)}` : ''}
           {s.shelfLifeWeeks ? ` · shelf life ${s.shelfLifeWeeks} weeks` : ''}
           {d.reviewed ? ' · ✓ reviewed' : ''}
