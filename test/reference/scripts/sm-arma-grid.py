@@ -77,7 +77,8 @@ def accept_polished(r, pol, d):
     default fit, within 1e-3 of it, and statsmodels computes the same log-likelihood there."""
     if not r["ok"] or pol is None or not pol["ok"]:
         return False
-    if any(m <= 1 for m in pol["arRootModuli"]) or any(m < 1 for m in pol["maRootModuli"]):
+    # an MA root on the unit circle is a common ML optimum; allow R to land a hair outside it
+    if any(m <= 1 for m in pol["arRootModuli"]) or any(m < 1 - 1e-5 for m in pol["maRootModuli"]):
         return False
     if not (r["loglik"] - 1e-7 <= pol["loglik"] <= r["loglik"] + 1e-3):
         return False
@@ -167,7 +168,7 @@ def main():
             "forecast": "R: predict(fit, n.ahead = 12)$pred and $se (Kalman forecast from the final state; with d = 1 integrated back).",
             "target": "the higher log-likelihood among the references that returned one (errors excluded, warnings included); targetBy names it. targetBasis 'series': the fits of y itself; 'diff' (d = 1): the ARMA(p,q) fits without mean to diff(y) (r.diffSeriesFit and statsmodels, which is then fitted to diff(y)), since the project fits the d-th difference. rShort / smShort: that reference errored or fell short of target by more than shortfallThreshold.",
             "loglikBySmAtRParams": "statsmodels' log-likelihood evaluated at R's estimates (a cross-check that both compute the same function).",
-            "polished": "r.polished: stats::arima restarted at its own estimate (init = coef, transform.pars = FALSE, optim reltol 1e-14). R's default stops at reltol 1e-8, which leaves parameters loose by up to ~1e-2 on flat likelihoods. r.polishedAccepted: stationary, invertible, no worse than the default fit, within 1e-3 of it, and statsmodels agrees on its log-likelihood; then it stands for 'R's optimum' in parameter and forecast comparisons. target and rShort use the default fit only.",
+            "polished": "r.polished: stats::arima restarted at its own estimate (init = coef, transform.pars = FALSE, optim reltol 1e-14). R's default stops at reltol 1e-8, which leaves parameters loose by up to ~1e-2 on flat likelihoods. r.polishedAccepted: stationary, invertible (MA root moduli >= 1 - 1e-5: a unit MA root is a common optimum), no worse than the default fit, within 1e-3 of it, and statsmodels agrees on its log-likelihood; then it stands for 'R's optimum' in parameter and forecast comparisons. target and rShort use the default fit only.",
             "rootModuli": "r.arRootModuli: moduli of the roots of 1 - phi_1 z - ...; r.maRootModuli: of 1 - theta_1 z - ... (> 1 = stationary / invertible). R does not constrain its MA part to be invertible.",
             "generatedBy": "test/reference/scripts/regenerate.sh (r-arma-grid.R then sm-arma-grid.py)",
             "rVersion": grid["rVersion"],
