@@ -101,7 +101,9 @@ export default async function importCommand(args: string[]): Promise<number> {
     throw err;
   }
   try {
-    return finish(await importFile(store, file, { ...options, kind, map }));
+    const onWriting = (info: { rowsRead: number; items: number }) =>
+      process.stderr.write(`read ${info.rowsRead} rows of ${info.items} items; writing to the store…\n`);
+    return finish(await importFile(store, file, { ...options, kind, map, onWriting }));
   } finally {
     store.close();
   }

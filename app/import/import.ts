@@ -39,6 +39,8 @@ export interface ImportOptions {
   actor?: string;
   /** Week start day (1 = Monday … 7 = Sunday); default the workspace's. */
   weekStartDay?: number;
+  /** Told when the file has been read and validated and the write transaction starts. */
+  onWriting?: (info: { rowsRead: number; items: number }) => void;
 }
 
 export interface ImportSummary {
@@ -205,16 +207,24 @@ async function analyse(path: string, options: ImportOptions, ws: WorkspaceSettin
     // Some dates are day/month or month/day: scan the date column alone, decide, then read again.
     const evidence = new DateOrderEvidence();
     let dateCol = -1;
-    await readRecords(path, sniff.delimiter, {
-      header(cells) {
-        const m = resolveMapping(options.kind, cells, options.map).mapping;
-        dateCol = m.columnOf.get('date') ?? m.columnOf.get('week') ?? m.columnOf.get('as_of') ?? -1;
-      },
-      row(cells, line) {
-        const t = cells[dateCol]?.trim();
-        if (t) evidence.see(t, line);
-      },
-    });
+    try {
+      await readRecords(path, sniff.delimiter, {
+        header(cells) {
+          const m = resolveMapping(options.kind, cells, options.map).mapping;
+          dateCol = m.columnOf.get('date') ?? m.columnOf.get('week') ?? m.columnOf.get('as_of') ?? -1;
+        },
+        row(cells, line) {
+          const t = cells[dateCol]?.trim();
+          if (t) evidence.see(t, line);
+        },
+      });
+    } catch (err) {
+      if (!(err instanceof FileProblem)) throw err;
+      a.report = new Report(fileName);
+      a.report.error(err.line, null, null, err.message);
+      a.sales = a.items = a.stock = null;
+      return a;
+    }
     const decision = evidence.decide();
     if ('problem' in decision) {
       a.report = new Report(fileName);
@@ -319,6 +329,7 @@ export async function importFile(store: Store, path: string, options: ImportOpti
 
   const actor = options.actor ?? defaultActor();
   const extra: string[] = [];
+  options.onWriting?.({ rowsRead: a.rowsRead, items: skuCount(a) });
   store.transaction(() => {
     const batchId = insertBatch(store, {
       kind: options.kind,

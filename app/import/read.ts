@@ -6,7 +6,7 @@
  */
 import { createHash } from 'node:crypto';
 import { closeSync, createReadStream, openSync, readSync, statSync } from 'node:fs';
-import { parse } from 'csv-parse';
+import { CsvError, parse } from 'csv-parse';
 
 export type Delimiter = ',' | ';' | '\t';
 
@@ -99,7 +99,7 @@ export function readRecords(path: string, delimiter: Delimiter, sink: RecordSink
       parser.destroy();
       if (err instanceof FileProblem) return reject(err);
       const e = err as { code?: string; message?: string; lines?: number };
-      if (typeof e.code === 'string' && e.code.startsWith('CSV_')) {
+      if (err instanceof CsvError || (typeof e.code === 'string' && e.code.startsWith('CSV_'))) {
         const msg = (e.message ?? '').replace(/ at line \d+/, '');
         return reject(new FileProblem(`the CSV cannot be read: ${msg}`, e.lines ?? null));
       }
