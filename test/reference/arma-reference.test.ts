@@ -33,6 +33,7 @@ interface RFit {
   ma: number[];
   mean?: number | null;
   sigma2: number;
+  stderr?: { ar: (number | null)[]; ma: (number | null)[]; mean?: number | null };
   aic: number;
   nobs: number;
   nParams: number;
@@ -196,6 +197,7 @@ describe('ARMA engine against base R stats::arima (ML) and statsmodels ARIMA (fi
   it('agrees with R on parameters within 1e-3 where both reach the same optimum', () => {
     const bad: string[] = [];
     const rShortOnRidge: string[] = [];
+    const seRel: number[] = [];
     let compared = 0;
     for (const o of outcomes) {
       if (!sameOptimumAsR(o)) continue;
@@ -212,6 +214,15 @@ describe('ARMA engine against base R stats::arima (ML) and statsmodels ARIMA (fi
         cmp('mean', ours.mean ?? Number.NaN, r.mean ?? Number.NaN, PARAM_TOL * observedSd(o.y));
       }
       cmp('sigma2', ours.sigma2, r.sigma2, PARAM_TOL * r.sigma2);
+      // Standard errors: printed for information only (R's come from a finite-difference Hessian
+      // with step 1e-3, so they are not a 1e-3 reference).
+      const pairs: [number, number | null | undefined][] = [
+        ...ours.stderr.ar.map((v, i) => [v, r.stderr?.ar[i]] as [number, number | null | undefined]),
+        ...ours.stderr.ma.map((v, i) => [v, r.stderr?.ma[i]] as [number, number | null | undefined]),
+      ];
+      if (ours.stderr.mean !== null) pairs.push([ours.stderr.mean, r.stderr?.mean]);
+      for (const [a, b] of pairs)
+        if (typeof b === 'number' && b > 0 && Number.isFinite(a)) seRel.push(Math.abs(a / b - 1));
       if (diffs.length === 0) continue;
       // Where ours is higher than R's optimum by more than 1e-5, R stopped short on a flat ridge
       // (typically an MA root on the unit circle with an AR root near it): ours is the closer
@@ -224,6 +235,12 @@ describe('ARMA engine against base R stats::arima (ML) and statsmodels ARIMA (fi
     console.log(
       `parameters compared with R's optimum on ${compared} fits, ${bad.length} disagree` +
         (rShortOnRidge.length > 0 ? `, ${rShortOnRidge.length} more where R stopped below ours` : ''),
+    );
+    seRel.sort((a, b) => a - b);
+    const q = (f: number) => (seRel.length ? seRel[Math.floor(f * (seRel.length - 1))] : Number.NaN);
+    console.log(
+      `standard errors vs R's var.coef on ${seRel.length} estimates: |ours/R − 1| median ${q(0.5).toExponential(1)}, ` +
+        `90% ${q(0.9).toExponential(1)}, ${seRel.filter((v) => v > 0.05).length} above 5%`,
     );
     if (bad.length > 0) console.log(`  ${bad.join('\n  ')}`);
     if (rShortOnRidge.length > 0) console.log(`  below ours (not failed):\n  ${rShortOnRidge.join('\n  ')}`);
