@@ -69,6 +69,12 @@ export function planOrderLine(input: OrderLineInput): OrderLine {
 
   const factor = safetyFactor(service.kind, service.level, interval.sd, cycleDemand);
   const computedSafetyStock = factor.k * interval.sd;
+  const qWords =
+    service.kind === 'fill'
+      ? periodic
+        ? ` (Q = expected demand of one ${w(R)}-week review period, ${q(cycleDemand)})`
+        : ` (Q = the lot, ${q(cycleDemand)})`
+      : '';
   const overridden = input.safetyStockOverride != null && Number.isFinite(input.safetyStockOverride);
   const safetyStock = overridden
     ? Math.max(0, input.safetyStockOverride as number)
@@ -114,12 +120,12 @@ export function planOrderLine(input: OrderLineInput): OrderLine {
     );
   } else if (computedSafetyStock < 0) {
     text.push(
-      `Safety factor ${factor.k.toFixed(2)} from the ${factor.method} is negative: the target is met without ` +
+      `Safety factor ${factor.k.toFixed(2)} from the ${factor.method}${qWords} is negative: the target is met without ` +
         'safety stock, so it is set to 0, never below.',
     );
   } else {
     text.push(
-      `Safety factor ${factor.k.toFixed(2)} from the ${factor.method}; safety stock ${factor.k.toFixed(2)} × ` +
+      `Safety factor ${factor.k.toFixed(2)} from the ${factor.method}${qWords}; safety stock ${factor.k.toFixed(2)} × ` +
         `${q(interval.sd)} = ${q(safetyStock)}${unit}.`,
     );
   }
