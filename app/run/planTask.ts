@@ -125,7 +125,7 @@ function detail(plan: ItemPlan, input: RunItemInput): string {
     demandClass: plan.demandClass,
     abcClass: input.abcClass,
     fitted: plan.fitted,
-    fittedWeeks: input.history.weekStart,
+    // aligned with the history (same length), so the screen places them without a copy of the weeks
     residualAcf: plan.residualAcf.acf,
     // band = 1.96/√n (Box & Jenkins), so n = (1.96/band)²
     residualCount: band > 0 ? Math.round((1.959963985 / band) ** 2) : 0,

@@ -14,13 +14,14 @@
  * - An item that fails gets the run's failed-item line and a flag; it never aborts the run.
  */
 import { abcClasses, annualConsumptionValue } from '../../core/replenish/abc';
-import { getAllWeeklyHistories, lastDemandWeek } from '../store/demand';
+import { lastDemandWeek } from '../store/demand';
 import { listActiveItems } from '../store/items';
 import { getAllOverrides, toPlanningOverrides } from '../store/overrides';
 import {
   getLatestRun,
   getPastForecasts,
   getRunFingerprints,
+  getRunHistories,
   type ItemRunRecord,
   type PlannedEntry,
   type ReusedEntry,
@@ -179,7 +180,7 @@ async function execute(
       }
     }
     const through = lastDemandWeek(store);
-    const histories = getAllWeeklyHistories(store, { activeOnly: true, to: through });
+    const histories = getRunHistories(store, through);
     const positions = getAllPositions(store);
     const overrides = getAllOverrides(store);
     const previous = getLatestRun(store);
@@ -190,7 +191,7 @@ async function execute(
     const abc = abcClasses(
       items.map((it) => ({
         sku: it.sku,
-        annualValue: annualConsumptionValue(recentMeanWeekly(histories.get(it.sku)?.qty ?? []), it.unitCost),
+        annualValue: annualConsumptionValue(recentMeanWeekly(histories.get(it.id)?.qty ?? []), it.unitCost),
       })),
       workspace.abcCutoffs,
     );
@@ -198,7 +199,7 @@ async function execute(
     const toPlan: { itemId: number; fingerprint: string; input: RunItemInput | null }[] = [];
     const reused: ReusedEntry[] = [];
     for (const it of items) {
-      const h = histories.get(it.sku) ?? { weekStart: [], qty: [] };
+      const h = histories.get(it.id) ?? { weekStart: [], qty: [] };
       const { id, placeholder: _placeholder, ...settings } = it;
       const o = overrides.get(it.sku);
       const input: RunItemInput = {
