@@ -10,7 +10,7 @@ import { DEFAULT_WORKSPACE, type WorkspaceSettings } from '../../core/plan/types
 import { appendAudit } from '../store/audit';
 import { findBatchBySha, finishBatch, type ImportKind, insertBatch } from '../store/batches';
 import { demandWriter } from '../store/demand';
-import { createPlaceholderItems, itemIdsBySku, upsertItems } from '../store/items';
+import { createPlaceholderItems, itemIdsBySku, listStoredItems, upsertItems } from '../store/items';
 import { getWorkspaceSettings } from '../store/settings';
 import { putPosition } from '../store/stock';
 import { nowIso, type Store } from '../store/store';
@@ -351,12 +351,16 @@ export async function importFile(store: Store, path: string, options: ImportOpti
     }
     let detail: Record<string, unknown> = {};
     if (a.sales) {
-      const st = a.sales.write(ids, known, demandWriter(store), batchId);
+      const activeKnown = new Map<string, number>();
+      for (const it of listStoredItems(store, { activeOnly: true }))
+        if (known.has(it.sku)) activeKnown.set(it.sku, it.id);
+      const st = a.sales.write(ids, known, demandWriter(store), batchId, activeKnown);
       detail = {
         inserted: st.inserted,
         replaced: st.replaced,
         changed: st.changed,
         zeroFilled: st.zeroFilled,
+        silentItems: st.silentItems,
         changes: st.changes,
       };
       if (st.replaced > 0) {
@@ -366,7 +370,7 @@ export async function importFile(store: Store, path: string, options: ImportOpti
       }
       if (st.zeroFilled > 0) {
         extra.push(
-          `${st.zeroFilled} item-weeks within the file's span had no lines and were stored as 0 sales`,
+          `${st.zeroFilled} item-weeks within the file's span had no lines and were stored as 0 sales${st.silentItems ? ` (${st.silentItems} of the items had no line in this file at all)` : ''}`,
         );
       }
     } else if (a.items) {

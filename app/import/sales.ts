@@ -4,7 +4,8 @@
  * the week that holds it. Dated lines (date,sku,qty[,order]): summed into the week of their date;
  * within the span of the file a week with no line had no sales and is stored as 0 (the span runs
  * from the file's first week for an item with earlier history, from its first line for a new one,
- * to the file's last week).
+ * to the file's last week). An active item with earlier history and no line in the file at all
+ * also sold nothing in the file's span, and gets zeros there too.
  *
  * Memory grows with distinct item-weeks, not with lines: cells live in typed arrays keyed by a
  * small integer (item index × 65536 + week index).
@@ -21,6 +22,8 @@ export interface SalesWriteStats {
   replaced: number;
   changed: number;
   zeroFilled: number;
+  /** Known items without any line in a dated file, given zero weeks over its span. */
+  silentItems: number;
   changes: string[];
 }
 
@@ -184,13 +187,21 @@ export class SalesCollector {
     known: Set<string>,
     writer: DemandWriter,
     batchId: number,
+    activeKnown: Map<string, number> = new Map(),
   ): SalesWriteStats {
     const order = new Uint32Array(this.n);
     for (let i = 0; i < this.n; i++) order[i] = i;
     const keys = this.keys;
     order.sort((a, b) => keys[a] - keys[b]);
     const isoOf = new Map<number, string>();
-    const stats: SalesWriteStats = { inserted: 0, replaced: 0, changed: 0, zeroFilled: 0, changes: [] };
+    const stats: SalesWriteStats = {
+      inserted: 0,
+      replaced: 0,
+      changed: 0,
+      zeroFilled: 0,
+      silentItems: 0,
+      changes: [],
+    };
     const lastWeek = this.dated ? weekStartOf(this.maxDay, this.ctx.weekStartDay) : 0;
     const fileFirstWeek = this.dated ? weekStartOf(this.minDay, this.ctx.weekStartDay) : 0;
     const fileFirstWeekIso = formatIsoDate(fileFirstWeek);
@@ -242,6 +253,26 @@ export class SalesCollector {
           put(w, 0, false);
           stats.zeroFilled++;
         }
+      }
+    }
+    // Known active items with earlier history and no line at all in this file sold nothing in its span.
+    if (this.dated && this.n > 0) {
+      for (const [sku, itemId] of activeKnown) {
+        if (this.skuIndex.has(sku)) continue;
+        const existing = writer.existing(itemId);
+        let earlier = false;
+        for (const w of existing.keys()) if (w < fileFirstWeekIso) earlier = true;
+        if (!earlier) continue;
+        let filled = false;
+        for (let w = fileFirstWeek; w <= lastWeek; w += 7) {
+          const ws = formatIsoDate(w);
+          if (existing.has(ws)) continue;
+          writer.upsert(itemId, ws, 0, false, batchId);
+          stats.inserted++;
+          stats.zeroFilled++;
+          filled = true;
+        }
+        if (filled) stats.silentItems++;
       }
     }
     writer.flush();

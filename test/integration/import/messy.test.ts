@@ -228,6 +228,25 @@ describe('duplicates, re-imports, stockouts, negatives, unknown SKUs', () => {
     s.close();
   });
 
+  it("gives zero weeks over a dated file's span to known items that had no line in it", async () => {
+    const s = newStore(dir);
+    await imp(s, writeCsv(dir, 'hist.csv', 'week,sku,qty\n2026-10-26,A,5\n2026-10-26,B,2\n'), {
+      kind: 'sales',
+    });
+    const r = await imp(s, writeCsv(dir, 'lines.csv', 'date,sku,qty\n2026-11-02,A,1\n2026-11-15,A,2\n'), {
+      kind: 'sales',
+    });
+    expect(r.warnings).toContain(
+      "2 item-weeks within the file's span had no lines and were stored as 0 sales (1 of the items had no line in this file at all)",
+    );
+    expect(rows(s, 'B')).toEqual([
+      ['2026-10-26', 2, false],
+      ['2026-11-02', 0, false],
+      ['2026-11-09', 0, false],
+    ]);
+    s.close();
+  });
+
   it('creates placeholder items on the workspace defaults for unknown SKUs, with a warning', async () => {
     const s = newStore(dir);
     putWorkspaceSettings(s, { leadTimeWeeks: 3 });
