@@ -114,7 +114,7 @@ function generateWeekly(r: ReturnType<typeof rng>): Generated {
 describe('random valid files round-trip', () => {
   it('weekly buckets: every cell read back as written', async () => {
     const r = rng(4242);
-    for (let k = 0; k < 40; k++) {
+    for (let k = 0; k < 30; k++) {
       const g = generateWeekly(r);
       if (g.rows.length === 0) continue;
       const s = newStore(dir);
@@ -177,7 +177,7 @@ describe('random corruptions', () => {
     });
     let rejected = 0;
     let imported = 0;
-    for (let k = 0; k < 150; k++) {
+    for (let k = 0; k < 120; k++) {
       const g = generateWeekly(r);
       if (g.rows.length < 2) continue;
       const physical = g.text.split(/(?<=\n)/);
