@@ -12,9 +12,9 @@ import { SCREEN_LEVEL, seasonalScreen } from './seasonalScreen';
  * Automatic model choice for one item's weekly demand.
  * 1. Sparse demand (ADI ≥ 1.32, Syntetos, Boylan & Croston 2005) with no negative values → SBA.
  * 2. d ≤ 2 by repeated KPSS tests at 5% (Kwiatkowski et al. 1992); with d = 1 a drift is a candidate.
- * 3. p, q ≤ 5 by AICc (Hurvich & Tsai 1989), either a stepwise walk — start from (0,0), (1,0),
- *    (0,1), (1,1) and move one step in p or in q (or toggle the drift when d = 1) while the best
- *    model changes, the idea published by Hyndman & Khandakar (2008) — or the full grid.
+ * 3. p, q ≤ 5 and p + q ≤ 5 by AICc (Hurvich & Tsai 1989), either a stepwise walk — start from (0,0), (1,0),
+ *    (0,1), (1,1) and move one step in p or in q while the best model changes (with d = 1 the
+ *    starts are fitted with and without drift, and the winner's drift toggled at the end), the idea published by Hyndman & Khandakar (2008) — or the full grid.
  * 4. With at least 104 weeks of history and a significant LM screen for an annual cycle, Fourier
  *    terms K = 1…4 (period 365.25/7) are fitted jointly with the ARMA errors and K chosen by AICc;
  *    the stepwise walk then continues with that K.
@@ -27,6 +27,8 @@ export interface ChooseOptions {
   forced?: { order: ModelOrder; seasonalHarmonics: number; includeMean: boolean } | null;
   /** Highest p and q considered (default 5). */
   maxOrder?: number;
+  /** Highest p + q considered (default 5, as the max.order of Hyndman & Khandakar 2008). */
+  maxTotalOrder?: number;
   /** Highest number of harmonic pairs (default 4). */
   maxHarmonics?: number;
   /** Skip the seasonal step entirely. */
@@ -36,6 +38,7 @@ export interface ChooseOptions {
 }
 
 export const NEAR_TIE = 0.1;
+export const MAX_TOTAL_ORDER = 5;
 export const MIN_ROOT_MODULUS = 1.01;
 export const SEASONAL_MIN_WEEKS = 104;
 const MAX_STEPWISE_FITS = 60;
@@ -158,6 +161,7 @@ export function chooseModel(
   const { d, tests } =
     options.d !== undefined ? { d: options.d, tests: [] as KpssResult[] } : chooseDifferencing(series, 2);
   const maxOrder = options.maxOrder ?? 5;
+  const maxTotal = options.maxTotalOrder ?? MAX_TOTAL_ORDER;
   const maxK = options.maxHarmonics ?? 4;
   const times = weekTimes(weekStart);
   const allFourier = n >= SEASONAL_MIN_WEEKS && options.seasonal !== false ? fourierColumns(times, maxK) : [];
@@ -167,7 +171,7 @@ export function chooseModel(
   const cache = new Map<string, Entry>();
   const order: Entry[] = [];
   const fitOne = (p: number, q: number, k: number, mean: boolean): Entry | null => {
-    if (p < 0 || q < 0 || p > maxOrder || q > maxOrder) return null;
+    if (p < 0 || q < 0 || p > maxOrder || q > maxOrder || p + q > maxTotal) return null;
     const nparams = p + q + (mean ? 1 : 0) + 2 * k + 1;
     if (nparams > maxParams && !(p === 0 && q === 0 && k === 0)) return null;
     const key = `${p},${q},${k},${mean ? 1 : 0}`;
@@ -209,7 +213,9 @@ export function chooseModel(
       return;
     }
     if (!centre) {
-      for (const [p, q] of START_ORDERS) fitOne(p, q, k, meanChoices[0]);
+      // With d = 1 the drift is decided on the starting orders (fitted with and without), kept
+      // during the walk, and toggled once more on the winner at the end.
+      for (const mean of meanChoices) for (const [p, q] of START_ORDERS) fitOne(p, q, k, mean);
     }
     let current = pick(order.filter((e) => e.k === k)) ?? centre;
     let budget = MAX_STEPWISE_FITS;
@@ -220,9 +226,12 @@ export function chooseModel(
       fitOne(p - 1, q, k, mean);
       fitOne(p, q + 1, k, mean);
       fitOne(p, q - 1, k, mean);
-      if (d === 1) fitOne(p, q, k, !mean);
       budget -= order.length - before;
-      const next = pick(order.filter((e) => e.k === k));
+      let next = pick(order.filter((e) => e.k === k));
+      if (next && next === current && d === 1) {
+        fitOne(p, q, k, !mean);
+        next = pick(order.filter((e) => e.k === k));
+      }
       if (!next || next === current) break;
       current = next;
     }
