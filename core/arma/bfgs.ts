@@ -17,6 +17,10 @@ export interface BfgsOptions {
   forward: boolean;
   /** Called after each iteration; returning true stops the search (e.g. a known optimum is near). */
   abandon?: (x: Float64Array, value: number) => boolean;
+  /** Replaces the built-in finite differences: writes ∇f(x) into out, given f(x) = fx. */
+  gradient?: (x: Float64Array, fx: number, out: Float64Array) => void;
+  /** Replaces the max |g_i| < gradientTolerance test. */
+  isConverged?: (x: Float64Array, g: Float64Array) => boolean;
   /** Largest change of any coordinate in one line search step. */
   maxStep: number;
 }
@@ -67,6 +71,10 @@ export function bfgsMinimize(
   const work = new Float64Array(m);
 
   const gradient = (z: Float64Array, out: Float64Array): void => {
+    if (o.gradient) {
+      o.gradient(z, fx, out);
+      return;
+    }
     for (let i = 0; i < m; i++) work[i] = z[i];
     if (o.forward) {
       for (let i = 0; i < m; i++) {
@@ -110,7 +118,7 @@ export function bfgsMinimize(
   for (; iterations < o.maxIterations; iterations++) {
     let gmax = 0;
     for (let i = 0; i < m; i++) gmax = Math.max(gmax, Math.abs(g[i]));
-    if (gmax < o.gradientTolerance) {
+    if (o.isConverged ? o.isConverged(x, g) : gmax < o.gradientTolerance) {
       converged = true;
       break;
     }

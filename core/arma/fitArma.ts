@@ -276,13 +276,12 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const value = lik.profile(arHat, maHat);
   const betaU = Array.from(lik.beta);
   const sigma2U = lik.sigma2;
-  const glsInv = lik.glsInverse();
   const loglik = lik.loglikFromObjective(value) - nobs * Math.log(scale);
   const sigma2 = sigma2U * scale * scale;
   const beta = betaU.map((b, i) => beta0[i] + scale * b);
 
   // Standard errors from the numerical Hessian of −log L = nobs · objective (σ² concentrated).
-  const se = naturalStandardErrors(lik, arHat, maHat, betaU, sigma2U, glsInv, nobs);
+  const se = naturalStandardErrors(lik, arHat, maHat, betaU, nobs);
   if (!se.ok) flags.push('hessian-not-definite');
 
   const det = lik.detailed(arHat, maHat, betaU);
@@ -358,85 +357,100 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
 }
 
 /**
- * √diag of the inverse of the Hessian of −log L in (φ, θ, β) by central differences (steps
- * 1e-4 for φ, θ; 1e-3 standard errors for β), with σ² concentrated out: the profile likelihood
- * gives the same covariance for the remaining parameters (Patefield 1977, Biometrika 64(3)).
+ * √diag of the inverse of the Hessian of −log L in (φ, θ, β) with σ² concentrated out (the profile
+ * likelihood gives the same covariance for the remaining parameters: Patefield 1977, Biometrika
+ * 64(3)), as base R's stats::arima computes it. The (φ, θ) block by central differences (step 1e-4,
+ * the mixed terms from the ++ and −− points: Abramowitz & Stegun 1964, 25.3.27); the β blocks
+ * analytically from the GLS sums of each stencil pass, since −log L is a function of
+ * SSR(β) = Σ (v_y − V_X β)²/F: ∂f/∂β = (S_XX β − S_Xy)/SSR, ∂²f/∂β² = S_XX/SSR at β̂.
  */
 function naturalStandardErrors(
   lik: ArmaLikelihood,
   ar: number[],
   ma: number[],
   beta: number[],
-  sigma2: number,
-  glsInv: Float64Array | null,
   nobs: number,
 ): { values: number[]; ok: boolean } {
   const p = ar.length;
   const q = ma.length;
   const k = beta.length;
-  const m = p + q + k;
+  const ma0 = p + q;
+  const m = ma0 + k;
   const nan = new Array<number>(m).fill(Number.NaN);
   if (m === 0) return { values: [], ok: true };
-  const z0 = [...ar, ...ma, ...beta];
-  const h = z0.map((_, i) => {
-    if (i < p + q) return 1e-4;
-    const j = i - p - q;
-    const v = glsInv ? sigma2 * glsInv[j * k + j] : 1;
-    return 1e-3 * Math.sqrt(v > 0 && Number.isFinite(v) ? v : 1);
-  });
+  const z0 = [...ar, ...ma];
+  const h = z0.map(() => 1e-4);
   const arW = new Float64Array(p);
   const maW = new Float64Array(q);
-  const bW = new Float64Array(k);
   const z = Float64Array.from(z0);
-  const f = (): number => {
+  const g = new Float64Array(k);
+  const f = (grad?: Float64Array): number => {
     for (let i = 0; i < p; i++) arW[i] = z[i];
     for (let i = 0; i < q; i++) maW[i] = z[p + i];
-    for (let i = 0; i < k; i++) bW[i] = z[p + q + i];
-    return nobs * lik.fixed(arW, maW, bW);
+    const v = lik.fixed(arW, maW, beta);
+    if (grad && Number.isFinite(v)) lik.gradientBeta(beta, grad);
+    return v;
   };
+  const H = new Float64Array(m * m);
   const f0 = f();
-  // Shrink a step while the model at ±h leaves the admissible region (an optimum on the edge).
-  for (let i = 0; i < p + q; i++) {
-    for (let tries = 0; tries < 6; tries++) {
-      z[i] = z0[i] + h[i];
-      const a = f();
-      z[i] = z0[i] - h[i];
-      const b = f();
-      z[i] = z0[i];
-      if (Number.isFinite(a) && Number.isFinite(b)) break;
-      h[i] /= 4;
+  if (!Number.isFinite(f0)) return { values: nan, ok: false };
+  // Every stencil pass switches to the steady state where the base pass did (a smooth function).
+  lik.forcedSwitch = lik.lastSwitch;
+  // β block from the base pass.
+  if (k > 0) {
+    let ssr = lik.syy;
+    for (let i = 0; i < k; i++) {
+      let s = -2 * lik.sxy[i];
+      for (let j = 0; j < k; j++) s += (i >= j ? lik.sxx[i * k + j] : lik.sxx[j * k + i]) * beta[j];
+      ssr += beta[i] * s;
+    }
+    for (let i = 0; i < k; i++) {
+      for (let j = 0; j < k; j++) {
+        H[(ma0 + i) * m + ma0 + j] = (i >= j ? lik.sxx[i * k + j] : lik.sxx[j * k + i]) / ssr;
+      }
     }
   }
-  const H = new Float64Array(m * m);
-  const fp = new Float64Array(m);
-  const fm = new Float64Array(m);
-  for (let i = 0; i < m; i++) {
-    z[i] = z0[i] + h[i];
-    fp[i] = f();
-    z[i] = z0[i] - h[i];
-    fm[i] = f();
-    z[i] = z0[i];
+  const fp = new Float64Array(ma0);
+  const fm = new Float64Array(ma0);
+  const gp = new Float64Array(k);
+  for (let i = 0; i < ma0; i++) {
+    // Shrink the step while the model at ±h leaves the admissible region (an optimum on the edge).
+    for (let tries = 0; tries < 6; tries++) {
+      z[i] = z0[i] + h[i];
+      fp[i] = f(gp);
+      z[i] = z0[i] - h[i];
+      fm[i] = f(g);
+      z[i] = z0[i];
+      if (Number.isFinite(fp[i]) && Number.isFinite(fm[i])) break;
+      h[i] /= 4;
+    }
     H[i * m + i] = (fp[i] - 2 * f0 + fm[i]) / (h[i] * h[i]);
+    for (let j = 0; j < k; j++) {
+      const v = (gp[j] - g[j]) / (2 * h[i]);
+      H[i * m + ma0 + j] = v;
+      H[(ma0 + j) * m + i] = v;
+    }
   }
-  for (let i = 0; i < m; i++) {
+  for (let i = 0; i < ma0; i++) {
     for (let j = 0; j < i; j++) {
       z[i] = z0[i] + h[i];
       z[j] = z0[j] + h[j];
       const fpp = f();
-      z[j] = z0[j] - h[j];
-      const fpm = f();
       z[i] = z0[i] - h[i];
+      z[j] = z0[j] - h[j];
       const fmm = f();
-      z[j] = z0[j] + h[j];
-      const fmp = f();
       z[i] = z0[i];
       z[j] = z0[j];
-      const v = (fpp - fpm - fmp + fmm) / (4 * h[i] * h[j]);
+      const v = (fpp - fp[i] - fp[j] + 2 * f0 - fm[i] - fm[j] + fmm) / (2 * h[i] * h[j]);
       H[i * m + j] = v;
       H[j * m + i] = v;
     }
   }
-  for (let i = 0; i < m * m; i++) if (!Number.isFinite(H[i])) return { values: nan, ok: false };
+  lik.forcedSwitch = -1;
+  for (let i = 0; i < m * m; i++) {
+    if (!Number.isFinite(H[i])) return { values: nan, ok: false };
+    H[i] *= nobs;
+  }
   const inv = invertSymmetric(H, m);
   if (!inv) return { values: nan, ok: false };
   const values: number[] = [];

@@ -21,7 +21,7 @@ import {
   stationaryCovariance,
 } from './stationaryCovariance';
 
-const STEADY_TOL = 1e-12;
+const STEADY_TOL = 1e-10;
 
 export class ArmaLikelihood {
   readonly n: number;
@@ -110,6 +110,14 @@ export class ArmaLikelihood {
   }
 
   /**
+   * Step at which the last pass switched to the steady state (−1: never). Setting forcedSwitch to
+   * a step makes the next passes switch exactly there, so that the finite-difference stencil of a
+   * gradient sees one smooth function rather than one with a jump where the switch step moves.
+   */
+  lastSwitch = -1;
+  forcedSwitch = -1;
+
+  /**
    * One filter pass accumulating the GLS sums. Returns false if a prediction variance is not
    * positive (numerically singular model).
    */
@@ -123,38 +131,15 @@ export class ArmaLikelihood {
     sxx.fill(0);
     sxy.fill(0);
     a.fill(0);
-    let syy = 0;
+    this.syy = 0;
     let sumLogF = 0;
     let nobs = 0;
-    let steady = false;
     const w = cols[0];
-    for (let t = 0; t < n; t++) {
+    const forced = this.forcedSwitch;
+    this.lastSwitch = -1;
+    let t = 0;
+    while (t < n) {
       const observed = !Number.isNaN(w[t]);
-      if (steady && !observed) {
-        // Leave the steady state: P_{t|t−1} = R Rᵀ there.
-        for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * r + j] = R[i] * R[j];
-        steady = false;
-      }
-      if (steady) {
-        for (let c = 0; c < nc; c++) {
-          const base = c * r;
-          const vc = cols[c][t] - a[base];
-          v[c] = vc;
-          // a ← T (a + R v)
-          const a0 = a[base] + vc;
-          for (let i = 0; i < r - 1; i++) a[base + i] = phi[i] * a0 + a[base + i + 1] + R[i + 1] * vc;
-          a[base + r - 1] = phi[r - 1] * a0;
-        }
-        const vy = v[0];
-        syy += vy * vy;
-        for (let i = 0; i < k; i++) {
-          const vi = v[i + 1];
-          sxy[i] += vi * vy;
-          for (let j = 0; j <= i; j++) sxx[i * k + j] += vi * v[j + 1];
-        }
-        nobs++;
-        continue;
-      }
       if (observed) {
         const F = P[0];
         if (!(F > 1e-300)) return false;
@@ -167,7 +152,7 @@ export class ArmaLikelihood {
           for (let i = 0; i < r; i++) a[base + i] += K[i] * vc;
         }
         const vy = v[0];
-        syy += vy * vy * invF;
+        this.syy += vy * vy * invF;
         for (let i = 0; i < k; i++) {
           const vi = v[i + 1] * invF;
           sxy[i] += vi * vy;
@@ -186,20 +171,99 @@ export class ArmaLikelihood {
           }
           trace += P[i * r + i];
         }
-        if (trace < STEADY_TOL) steady = true;
+        for (let c = 0; c < nc; c++) {
+          const base = c * r;
+          const a0 = a[base];
+          for (let i = 0; i < r - 1; i++) a[base + i] = phi[i] * a0 + a[base + i + 1];
+          a[base + r - 1] = phi[r - 1] * a0;
+        }
+        t++;
+        if (forced >= 0 ? t === forced : trace < STEADY_TOL) {
+          // P_{t|t} ≈ 0 from here: gain R, F = 1, until the next missing week.
+          if (this.lastSwitch < 0) this.lastSwitch = t;
+          const t1 = nc === 2 ? this.steadyMean(t) : this.steadyGeneric(t);
+          nobs += t1 - t;
+          t = t1;
+          if (t < n) {
+            // A missing week ends the steady state: P_{t|t−1} = R Rᵀ there.
+            for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * r + j] = R[i] * R[j];
+          }
+          continue;
+        }
+        this.predictCovariance();
+      } else {
+        for (let c = 0; c < nc; c++) {
+          const base = c * r;
+          const a0 = a[base];
+          for (let i = 0; i < r - 1; i++) a[base + i] = phi[i] * a0 + a[base + i + 1];
+          a[base + r - 1] = phi[r - 1] * a0;
+        }
+        this.predictCovariance();
+        t++;
       }
-      for (let c = 0; c < nc; c++) {
-        const base = c * r;
-        const a0 = a[base];
-        for (let i = 0; i < r - 1; i++) a[base + i] = phi[i] * a0 + a[base + i + 1];
-        a[base + r - 1] = phi[r - 1] * a0;
-      }
-      if (!steady) this.predictCovariance();
     }
-    this.syy = syy;
     this.sumLogF = sumLogF;
     this.nobs = nobs;
     return true;
+  }
+
+  /** Steady-state recursion a ← T(a + R v) for the series and one regressor, from step t0. */
+  private steadyMean(t0: number): number {
+    const { n, r, phi, R, a, cols } = this;
+    const w = cols[0];
+    const x = cols[1];
+    let syy = 0;
+    let sxy = 0;
+    let sxx = 0;
+    let t = t0;
+    for (; t < n; t++) {
+      const wt = w[t];
+      if (Number.isNaN(wt)) break;
+      const xt = x[t];
+      const vy = wt - a[0];
+      const vx = xt - a[r];
+      for (let i = 0; i < r - 1; i++) {
+        a[i] = phi[i] * wt + a[i + 1] + R[i + 1] * vy;
+        a[r + i] = phi[i] * xt + a[r + i + 1] + R[i + 1] * vx;
+      }
+      a[r - 1] = phi[r - 1] * wt;
+      a[2 * r - 1] = phi[r - 1] * xt;
+      syy += vy * vy;
+      sxy += vx * vy;
+      sxx += vx * vx;
+    }
+    this.syy += syy;
+    this.sxy[0] += sxy;
+    this.sxx[0] += sxx;
+    return t;
+  }
+
+  /** Steady-state recursion for any number of columns, from step t0. */
+  private steadyGeneric(t0: number): number {
+    const { n, r, phi, R, a, v, cols } = this;
+    const nc = this.k + 1;
+    const k = this.k;
+    const w = cols[0];
+    let t = t0;
+    for (; t < n; t++) {
+      if (Number.isNaN(w[t])) break;
+      for (let c = 0; c < nc; c++) {
+        const base = c * r;
+        const xt = cols[c][t];
+        const vc = xt - a[base];
+        v[c] = vc;
+        for (let i = 0; i < r - 1; i++) a[base + i] = phi[i] * xt + a[base + i + 1] + R[i + 1] * vc;
+        a[base + r - 1] = phi[r - 1] * xt;
+      }
+      const vy = v[0];
+      this.syy += vy * vy;
+      for (let i = 0; i < k; i++) {
+        const vi = v[i + 1];
+        this.sxy[i] += vi * vy;
+        for (let j = 0; j <= i; j++) this.sxx[i * k + j] += vi * v[j + 1];
+      }
+    }
+    return t;
   }
 
   /** Cholesky of sxx (lower triangle filled) into chol; false if not positive definite. */
@@ -263,6 +327,19 @@ export class ArmaLikelihood {
       }
     }
     return this.finish(ssr);
+  }
+
+  /** ∂objective/∂β at β (u scale) from the last pass: (Σ V_X V_Xᵀ/F · β − Σ V_X v_y/F) / SSR(β). */
+  gradientBeta(beta: ArrayLike<number>, out: Float64Array): void {
+    const k = this.k;
+    let ssr = this.syy;
+    for (let i = 0; i < k; i++) {
+      let s = -this.sxy[i];
+      for (let j = 0; j < k; j++) s += (i >= j ? this.sxx[i * k + j] : this.sxx[j * k + i]) * beta[j];
+      out[i] = s;
+      ssr += beta[i] * (s - this.sxy[i]);
+    }
+    for (let i = 0; i < k; i++) out[i] /= ssr;
   }
 
   private finish(ssr: number): number {

@@ -17,6 +17,10 @@ import { ArmaLikelihood } from './kalmanLikelihood';
 import { coefficientsToUnconstrained, unconstrainedToCoefficients } from './partialAutocorrelations';
 
 const ABANDON_RADIUS = 0.05;
+const GRAD_STEP = 1e-6;
+const STAGE1_ITERATIONS = 5;
+const STAGE2_KEEP = 3;
+const GRAD_TOL = 1e-6;
 const NESTED_FROM = 5;
 const SCREEN_FROM = 5;
 const SCREEN_N = 128;
@@ -161,6 +165,35 @@ function search(
     return lik.profile(ar, ma);
   };
 
+  const m = p + q;
+  const xh = new Float64Array(m);
+  // Forward differences, each stencil point filtered with the base point's switch step.
+  const gradient = (x: Float64Array, fx: number, out: Float64Array): void => {
+    lik.forcedSwitch = lik.lastSwitch;
+    for (let i = 0; i < m; i++) xh[i] = x[i];
+    for (let i = 0; i < m; i++) {
+      xh[i] = x[i] + GRAD_STEP;
+      const fp = objective(xh);
+      if (Number.isFinite(fp)) out[i] = (fp - fx) / GRAD_STEP;
+      else {
+        xh[i] = x[i] - GRAD_STEP;
+        const fm = objective(xh);
+        out[i] = Number.isFinite(fm) ? (fx - fm) / GRAD_STEP : 0;
+      }
+      xh[i] = x[i];
+    }
+    lik.forcedSwitch = -1;
+  };
+  // Converged when the gradient in the partial autocorrelations (not in u = atanh π, whose
+  // gradient vanishes near |π| = 1) is small: optima on the edge of the region are then reached.
+  const isConverged = (x: Float64Array, g: Float64Array): boolean => {
+    for (let i = 0; i < m; i++) {
+      const t = Math.tanh(x[i]);
+      if (Math.abs(g[i]) > GRAD_TOL * Math.max(1 - t * t, 1e-300)) return false;
+    }
+    return true;
+  };
+
   const starts = basicStarts(u, p, q);
   if (p + q >= NESTED_FROM && p > 0 && q > 0) {
     const lower = searchOptimum(u, xcols, p - 1, q - 1, maxIterations, cache);
@@ -186,14 +219,17 @@ function search(
   }
   if (p + q >= SCREEN_FROM) for (const x of screenedStarts(objective, p + q)) distinctPush(starts, x);
 
-  let best: { x: Float64Array; value: number; converged: boolean } | null = null;
-  for (const start of starts) {
-    const incumbent = best;
-    const res = bfgsMinimize(objective, start, {
-      maxIterations,
-      forward: true,
-      step: 1e-6,
-      gradientTolerance: 1e-6,
+  // Stage 1: a few BFGS iterations from every start. Stage 2: the best STAGE2_KEEP distinct
+  // candidates run to convergence; a candidate entering a better one's basin is stopped.
+  const run = (
+    start: Float64Array,
+    iterations: number,
+    incumbent: { x: Float64Array; value: number } | null,
+  ) =>
+    bfgsMinimize(objective, start, {
+      maxIterations: iterations,
+      gradient,
+      isConverged,
       valueTolerance: 1e-10,
       abandon: incumbent
         ? (x, v) => {
@@ -204,6 +240,34 @@ function search(
           }
         : undefined,
     });
+  // Larger orders (p + q ≥ NESTED_FROM) are rare and hard: every start runs to convergence there.
+  const keep = m >= NESTED_FROM ? starts.length : STAGE2_KEEP;
+  const stage1 = starts
+    .map((x) =>
+      starts.length > keep ? run(x, STAGE1_ITERATIONS, null) : { x, value: objective(x), converged: false },
+    )
+    .filter((r) => Number.isFinite(r.value))
+    .sort((a, b) => a.value - b.value);
+  const candidates: { x: Float64Array; value: number; converged: boolean }[] = [];
+  for (const r of stage1) {
+    if (candidates.length >= keep) break;
+    if (r.converged) {
+      candidates.push(r);
+      continue;
+    }
+    let near = false;
+    for (const c of candidates) {
+      let dist = 0;
+      for (let i = 0; i < m; i++) dist = Math.max(dist, Math.abs(c.x[i] - r.x[i]));
+      if (dist < ABANDON_RADIUS) near = true;
+    }
+    if (!near) candidates.push(r);
+  }
+  let best: { x: Float64Array; value: number; converged: boolean } | null = null;
+  for (const c of candidates) {
+    const res: { x: Float64Array; value: number; converged: boolean } = c.converged
+      ? c
+      : run(c.x, maxIterations, best);
     if (Number.isFinite(res.value) && (!best || res.value < best.value - 1e-12)) {
       best = { x: res.x, value: res.value, converged: res.converged };
     }
