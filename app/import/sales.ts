@@ -45,7 +45,10 @@ export class SalesCollector {
 
   constructor(private readonly ctx: RowContext) {
     this.dated = ctx.has('date');
+    this.hasStockout = ctx.has('stockout');
   }
+
+  private readonly hasStockout: boolean;
 
   private grow(): void {
     const size = this.keys.length * 2;
@@ -62,21 +65,36 @@ export class SalesCollector {
     this.line = g(this.line, (k) => new Int32Array(k));
   }
 
+  /** Date text → [day, week start] for texts already read (most lines repeat a few hundred dates). */
+  private readonly dayOf = new Map<string, number>();
+  private readonly weekOfText = new Map<string, number>();
+
   row(cells: string[], line: number): void {
     const ctx = this.ctx;
     const r = ctx.report;
     const sku = ctx.cell(cells, 'sku');
     if (sku === '') r.error(line, ctx.header('sku'), null, 'the SKU is empty');
     const dateField = this.dated ? 'date' : 'week';
-    const day = ctx.date(cells, dateField, line);
-    if (day === null) r.error(line, ctx.header(dateField), null, `the ${dateField} is empty`);
+    const dateText = ctx.cell(cells, dateField);
+    let day: number | null | undefined = this.dayOf.get(dateText);
+    let ws = day === undefined ? 0 : this.weekOfText.get(dateText)!;
+    if (day === undefined) {
+      day = ctx.date(cells, dateField, line);
+      if (day === null) r.error(line, ctx.header(dateField), null, `the ${dateField} is empty`);
+      else if (day !== undefined) {
+        ws = weekStartOf(day, ctx.weekStartDay);
+        this.dayOf.set(dateText, day);
+        this.weekOfText.set(dateText, ws);
+        this.weekSet.add(ws);
+      }
+    }
     let qty = ctx.number(cells, 'qty', line);
     if (qty === null && this.dated) {
       r.error(line, ctx.header('qty'), null, 'the quantity is empty');
       qty = undefined;
     }
     let out = false;
-    if (ctx.has('stockout')) {
+    if (this.hasStockout) {
       const text = ctx.cell(cells, 'stockout');
       const f = parseFlag(text);
       if (f === null)
@@ -98,7 +116,6 @@ export class SalesCollector {
         (n, ex) => `${n} rows have an empty quantity, stored as missing weeks (${ex})`,
       );
     }
-    const ws = weekStartOf(day, ctx.weekStartDay);
     if (!this.dated && ws !== day) {
       r.warn(
         'weekday',
@@ -116,7 +133,6 @@ export class SalesCollector {
       this.skuIndex.set(sku, idx);
     }
     const wk = Math.floor(ws / 7) + WEEK_OFFSET;
-    this.weekSet.add(ws);
     const key = idx * 65536 + wk;
     const slot = this.slotOf.get(key);
     if (slot !== undefined) {

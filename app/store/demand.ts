@@ -92,7 +92,7 @@ export function getAllWeeklyHistories(
 
 /**
  * Writing side for the import: read what an item has, then insert or replace its weeks. Rows are
- * sent to SQLite 100 at a time (one multi-row INSERT … ON CONFLICT), which halves the cost of a
+ * sent to SQLite 250 at a time (one multi-row INSERT … ON CONFLICT), which halves the cost of a
  * large import against one statement per row; call `flush()` before the transaction ends.
  */
 export interface DemandWriter {
@@ -101,7 +101,7 @@ export interface DemandWriter {
   flush(): void;
 }
 
-const BATCH_ROWS = 100;
+const BATCH_ROWS = 250;
 const UPSERT_TAIL =
   ' ON CONFLICT (item_id, week_start) DO UPDATE SET qty = excluded.qty, stockout = excluded.stockout, batch_id = excluded.batch_id';
 

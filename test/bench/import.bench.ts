@@ -7,6 +7,7 @@
 import { spawnSync } from 'node:child_process';
 import { once } from 'node:events';
 import { createWriteStream, existsSync, mkdirSync, rmSync } from 'node:fs';
+import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
 
 const SKUS = Number(process.env.BENCH_SKUS ?? 5000);
@@ -41,7 +42,13 @@ async function writeFile(): Promise<void> {
   await once(out, 'finish');
 }
 
-function run(args: string[]): { wall: number; rssMb: number; status: number | null; last: string } {
+function run(args: string[]): {
+  wall: number;
+  cpu: number;
+  rssMb: number;
+  status: number | null;
+  last: string;
+} {
   const r = spawnSync(
     '/usr/bin/time',
     ['-v', process.execPath, '--import', 'tsx', join(root, 'app/cli/main.ts'), ...args],
@@ -54,9 +61,12 @@ function run(args: string[]): { wall: number; rssMb: number; status: number | nu
   const wallText = /Elapsed \(wall clock\) time.*: (.*)/.exec(r.stderr)?.[1] ?? '0:0';
   const parts = wallText.split(':').map(Number);
   const wall = parts.reduce((a, b) => a * 60 + b, 0);
+  const cpu =
+    Number(/User time \(seconds\): ([\d.]+)/.exec(r.stderr)?.[1] ?? 0) +
+    Number(/System time \(seconds\): ([\d.]+)/.exec(r.stderr)?.[1] ?? 0);
   const rss = Number(/Maximum resident set size \(kbytes\): (\d+)/.exec(r.stderr)?.[1] ?? 0) / 1024;
   const lines = r.stdout.trim().split('\n');
-  return { wall, rssMb: rss, status: r.status, last: lines[lines.length - 1] ?? '' };
+  return { wall, cpu, rssMb: rss, status: r.status, last: lines[lines.length - 1] ?? '' };
 }
 
 if (!existsSync('/usr/bin/time')) {
@@ -79,7 +89,8 @@ const r = run(['import', file, '--store', store, '--kind', 'sales']);
 const summary = JSON.parse(r.last) as { status: string; rowsRead: number; items: number; weeks: number };
 process.stdout.write(
   `import ${summary.rowsRead} dated lines (${SKUS} SKUs × ${WEEKS} weeks) → ${summary.status}, ${summary.items} items, ${summary.weeks} weeks\n` +
-    `  wall ${r.wall.toFixed(2)} s (target ≤ 10 s), peak RSS ${r.rssMb.toFixed(0)} MB (target ≤ 300 MB), per /usr/bin/time -v\n`,
+    `  wall ${r.wall.toFixed(2)} s (target ≤ 10 s), CPU user+sys ${r.cpu.toFixed(2)} s, peak RSS ${r.rssMb.toFixed(0)} MB (target ≤ 300 MB), per /usr/bin/time -v\n` +
+    `  (machine load average at the end: ${loadavg()[0].toFixed(1)} on ${availableParallelism()} cores; wall time grows with the load)\n`,
 );
 const again = run(['import', file, '--store', store, '--kind', 'sales']);
 process.stdout.write(
