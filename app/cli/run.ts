@@ -62,20 +62,25 @@ export default async function run(args: string[]): Promise<number> {
     return parsed ? 2 : 0;
   }
   const view = progressView(process.stderr);
-  const handle = startRun(
-    parsed.store,
-    { items: parsed.items, force: parsed.force, workers: parsed.workers, actor: 'cli' },
-    (p) => view.update(p),
-  );
+  // The handler goes in before the run starts: startRun does its reading synchronously, and a
+  // Ctrl-C in that window must cancel too, not kill the process.
+  let cancel: (() => void) | null = null;
   let interrupts = 0;
   const onSigint = () => {
     interrupts++;
     if (interrupts === 1) {
       process.stderr.write('\ncancelling the run (nothing of it will be written)…\n');
-      handle.cancel();
+      cancel?.();
     } else process.exit(130);
   };
   process.on('SIGINT', onSigint);
+  const handle = startRun(
+    parsed.store,
+    { items: parsed.items, force: parsed.force, workers: parsed.workers, actor: 'cli' },
+    (p) => view.update(p),
+  );
+  cancel = handle.cancel;
+  if (interrupts > 0) handle.cancel();
   const summary = await handle.done;
   process.off('SIGINT', onSigint);
   view.end();

@@ -79,6 +79,9 @@ export interface RunHandle {
 
 const PROGRESS_EVERY_MS = 200;
 
+/** Let the event loop run (timers, I/O, a cancel) between the synchronous store reads. */
+const yieldToLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
+
 /** Mean of the last 52 observed weeks (null weeks skipped), 0 when none. */
 function recentMeanWeekly(qty: readonly (number | null)[]): number {
   let s = 0;
@@ -160,6 +163,7 @@ async function execute(
     }
   };
   try {
+    await yieldToLoop(); // startRun returns at once; the reading starts on the next turn
     store = own ? openStore(storeOrPath as string) : (storeOrPath as Store);
     emit('preparing');
     const workspace = getWorkspaceSettings(store);
@@ -180,7 +184,9 @@ async function execute(
       }
     }
     const through = lastDemandWeek(store);
+    await yieldToLoop();
     const histories = getRunHistories(store, through);
+    await yieldToLoop();
     const positions = getAllPositions(store);
     const overrides = getAllOverrides(store);
     const previous = getLatestRun(store);
@@ -198,7 +204,13 @@ async function execute(
 
     const toPlan: { itemId: number; fingerprint: string; input: RunItemInput | null }[] = [];
     const reused: ReusedEntry[] = [];
+    let sinceYield = 0;
     for (const it of items) {
+      if (++sinceYield === 500) {
+        sinceYield = 0;
+        await yieldToLoop();
+        if (isCancelled()) throw new CancelledRun();
+      }
       const h = histories.get(it.id) ?? { weekStart: [], qty: [] };
       const { id, placeholder: _placeholder, ...settings } = it;
       const o = overrides.get(it.sku);
