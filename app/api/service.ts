@@ -103,6 +103,8 @@ export function createService(options: ServiceOptions): ProvisionService {
   let progress: RunProgress = { ...IDLE };
   let running: RunHandle | null = null;
   let rowsCache: ItemRow[] | null = null;
+  /** First and last week of the store's demand, found while building the overview rows. */
+  let span: { first: string | null; last: string | null } = { first: null, last: null };
 
   const changed = () => {
     rowsCache = null;
@@ -131,25 +133,14 @@ export function createService(options: ServiceOptions): ProvisionService {
     store,
 
     async storeInfo(): Promise<StoreInfo> {
-      const items = listStoredItems(store);
-      const histories = rowsCache ? null : getAllWeeklyHistories(store);
-      let first: string | null = null;
-      let last: string | null = null;
-      if (histories) {
-        for (const h of histories.values()) {
-          if (h.weekStart.length === 0) continue;
-          if (first === null || h.weekStart[0] < first) first = h.weekStart[0];
-          const l = h.weekStart[h.weekStart.length - 1];
-          if (last === null || l > last) last = l;
-        }
-      }
+      const rows = await service.listItems();
       const run = results.latestRun();
       return {
         path: store.path,
-        items: items.length,
-        activeItems: items.filter((i) => i.active).length,
-        firstWeek: first,
-        lastWeek: last,
+        items: rows.length,
+        activeItems: rows.filter((i) => i.active).length,
+        firstWeek: span.first,
+        lastWeek: span.last,
         lastRun: run,
       };
     },
@@ -160,8 +151,15 @@ export function createService(options: ServiceOptions): ProvisionService {
       const histories = getAllWeeklyHistories(store);
       const overrides = getAllOverrides(store);
       const summary = results.summaries();
+      let first: string | null = null;
+      let last: string | null = null;
       rowsCache = items.map((it) => {
         const h = histories.get(it.sku);
+        if (h && h.weekStart.length > 0) {
+          if (first === null || h.weekStart[0] < first) first = h.weekStart[0];
+          const l = h.weekStart[h.weekStart.length - 1];
+          if (last === null || l > last) last = l;
+        }
         const s = summary.get(it.sku);
         const observed = h ? h.qty.filter((q) => q !== null).length : 0;
         return {
@@ -178,6 +176,7 @@ export function createService(options: ServiceOptions): ProvisionService {
           reviewed: overrides.get(it.sku)?.reviewedAt != null,
         };
       });
+      span = { first, last };
       return rowsCache;
     },
 
@@ -367,6 +366,10 @@ export function createService(options: ServiceOptions): ProvisionService {
       store.close();
     },
   };
+  // Build the overview once in the background, so the first page load finds it ready.
+  setTimeout(() => {
+    service.listItems().catch(() => undefined);
+  }, 0).unref();
   return service;
 }
 

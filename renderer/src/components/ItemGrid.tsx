@@ -12,6 +12,8 @@ import type { ItemRow } from '../../../app/api/contract';
 import { units } from '../format';
 
 const ROW_HEIGHT = 30;
+/** The sticky header row's height: the rows start below it inside the same scroller. */
+const HEAD_HEIGHT = 28;
 
 const SEVERITY_WORDS: Record<string, string> = {
   critical: 'needs attention',
@@ -38,6 +40,7 @@ export function ItemGrid(props: {
     getScrollElement: () => scroller.current,
     estimateSize: () => ROW_HEIGHT,
     overscan: 12,
+    scrollMargin: HEAD_HEIGHT,
   });
 
   useEffect(() => {
@@ -88,32 +91,34 @@ export function ItemGrid(props: {
   const activeRendered = items.some((v) => v.index === active);
 
   return (
-    <div
-      className="grid"
-      role="grid"
-      aria-label={props.label}
-      aria-rowcount={rows.length + 1}
-      aria-colcount={7}
-      tabIndex={0}
-      onKeyDown={onKey}
-      aria-activedescendant={rows.length > 0 && activeRendered ? rowId(active) : undefined}
-    >
-      <div className="grid-head" role="rowgroup">
-        <div className="grid-row grid-cols" role="row" aria-rowindex={1}>
-          <span role="columnheader">SKU</span>
-          <span role="columnheader">Description</span>
-          <span role="columnheader">Supplier</span>
-          <span role="columnheader" className="num">
-            Weeks
-          </span>
-          <span role="columnheader">Model</span>
-          <span role="columnheader">Flags</span>
-          <span role="columnheader" className="num">
-            Order
-          </span>
+    <div className="grid">
+      <div
+        className="grid-body"
+        ref={scroller}
+        data-testid="item-grid-body"
+        role="grid"
+        aria-label={props.label}
+        aria-rowcount={rows.length + 1}
+        aria-colcount={7}
+        tabIndex={0}
+        onKeyDown={onKey}
+        aria-activedescendant={rows.length > 0 && activeRendered ? rowId(active) : undefined}
+      >
+        <div className="grid-head" role="rowgroup">
+          <div className="grid-row grid-cols" role="row" aria-rowindex={1}>
+            <span role="columnheader">SKU</span>
+            <span role="columnheader">Description</span>
+            <span role="columnheader">Supplier</span>
+            <span role="columnheader" className="num">
+              Weeks
+            </span>
+            <span role="columnheader">Model</span>
+            <span role="columnheader">Flags</span>
+            <span role="columnheader" className="num">
+              Order
+            </span>
+          </div>
         </div>
-      </div>
-      <div className="grid-body" ref={scroller} data-testid="item-grid-body">
         <div role="rowgroup" className="grid-canvas" style={{ height: virtualizer.getTotalSize() }}>
           {items.map((v) => {
             const r = rows[v.index];
@@ -126,7 +131,7 @@ export function ItemGrid(props: {
                 aria-rowindex={v.index + 2}
                 aria-selected={isSelected}
                 className={`grid-row grid-cols${isSelected ? ' selected' : ''}${v.index === active ? ' active' : ''}${r.active ? '' : ' inactive'}`}
-                style={{ transform: `translateY(${v.start}px)`, height: ROW_HEIGHT }}
+                style={{ transform: `translateY(${v.start - HEAD_HEIGHT}px)`, height: ROW_HEIGHT }}
                 onClick={() => {
                   setActive(v.index);
                   onOpen(r.sku);
