@@ -69,6 +69,8 @@ export interface ImportPreview {
   weeks: number;
   warnings: string[];
   errors: ImportProblem[];
+  /** How many errors there are in all (the list is capped). */
+  errorsTotal: number;
   /** When a store was given: SKUs of the file the store does not know (capped at 100). */
   unknownSkus: string[];
   /** When a store was given: the batch that already imported these bytes, if any. */
@@ -445,6 +447,7 @@ export async function previewImport(
     weeks: s.weeks,
     warnings: s.warnings,
     errors: s.errors,
+    errorsTotal: a.report.errorCount,
     unknownSkus,
     alreadyImported,
   };

@@ -32,6 +32,9 @@ export function parseNumber(text: string, decimal: DecimalMark): number | string
   const groups = intPart.split(new RegExp(`[_${thousands === '.' ? '\\.' : ','}]`));
   if (groups.length > 1) {
     if (!/^\d{1,3}$/.test(groups[0]) || groups.slice(1).some((g) => !/^\d{3}$/.test(g))) {
+      if (decimal === ',' && intPart.includes('.') && frac === undefined && groups.length === 2) {
+        return "is not a number (a decimal point? this file is read with decimal comma ','; pass --decimal dot)";
+      }
       if (decimal === '.' && intPart.includes(',') && frac === undefined && groups.length === 2) {
         return "is not a number (a decimal comma? this file is read with decimal point '.'; pass --decimal comma)";
       }
