@@ -1,12 +1,14 @@
 /**
  * `fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H]
- *      [--date-column NAME] [--value-column NAME]`
+ *      [--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest]`
  * Fits an ARIMA model to each weekly series and prints one JSON object per file per line (JSON
- * Lines). Without --order the model is ARMA(1,0,1) with a mean. All files are fitted in this one
- * process (the JIT warms up once). A file that cannot be read is reported on stderr with its line
+ * Lines). Without --order the model is chosen automatically (core/select: order, differencing,
+ * annual terms, sparse-demand method), with diagnostics, flags and, on request, a backtest.
+ * All files are fitted in this one process (the JIT warms up once). A file that cannot be read is reported on stderr with its line
  * and field; the other files are still fitted, and the exit code is 1.
  */
 import { type ArmaFit, fitArma, forecastArma, forecastIntervals } from '../../core/arma';
+import { choiceRecord } from '../../core/select/choiceRecord';
 import { CsvInputError, readWeeklyCsv } from './fit-csv';
 
 export interface FitCommandOptions {
@@ -15,11 +17,15 @@ export interface FitCommandOptions {
   horizon: number;
   dateColumn: string;
   valueColumn: string;
+  /** Automatic choice (no --order): 'stepwise' (default) or 'grid' (--search grid). */
+  search: 'stepwise' | 'grid';
+  /** --backtest: add a rolling-origin backtest over the last 26 weeks to each line. */
+  backtest: boolean;
 }
 
 const USAGE =
   'usage: npm run -s cli -- fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H] ' +
-  '[--date-column NAME] [--value-column NAME]\n';
+  '[--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest]\n';
 
 /** The model for one series. The one place that decides which model a series gets. */
 export function fitSeries(values: Float64Array, options: FitCommandOptions): ArmaFit {
@@ -86,6 +92,8 @@ export function parseFitArgs(args: string[]): { files: string[]; options: FitCom
     horizon: 12,
     dateColumn: 'week',
     valueColumn: 'qty',
+    search: 'stepwise',
+    backtest: false,
   };
   const value = (i: number, name: string): string => {
     const v = args[i + 1];
@@ -115,6 +123,12 @@ export function parseFitArgs(args: string[]): { files: string[]; options: FitCom
       options.horizon = h;
     } else if (a === '--date-column') options.dateColumn = value(i++, a);
     else if (a === '--value-column') options.valueColumn = value(i++, a);
+    else if (a === '--search') {
+      const text = value(i++, a);
+      if (text !== 'stepwise' && text !== 'grid')
+        throw new UsageError(`--search '${text}' must be stepwise or grid`);
+      options.search = text;
+    } else if (a === '--backtest') options.backtest = true;
     else if (a.startsWith('--')) throw new UsageError(`unknown option '${a}'`);
     else files.push(a);
   }
@@ -143,8 +157,8 @@ export default async function fit(args: string[]): Promise<number> {
   for (const file of files) {
     try {
       const series = readWeeklyCsv(file, options);
-      const model = fitSeries(series.values, options);
-      out.push(fitRecord(file, series.values.length, model, options.horizon));
+      // Model choice (automatic without --order), forecast, diagnosis and flags: core/select.
+      out.push(JSON.stringify(choiceRecord(file, series.values, series.firstWeek, options)));
     } catch (err) {
       if (!(err instanceof CsvInputError)) throw err;
       flush();

@@ -69,14 +69,14 @@ export function makeFlag(code: FlagCode, facts: Record<string, number | string> 
       return {
         code,
         severity: 'warning',
-        reason: `An AR root has modulus ${num(Number(f.modulus))} (within 1.05 of the unit circle), so demand behaves almost like a random walk and long-range forecasts are fragile.`,
+        reason: `An AR root has modulus ${Number(f.modulus).toFixed(3)} (within 1.05 of the unit circle), so demand behaves almost like a random walk and long-range forecasts are fragile.`,
         action: 'Watch the forecast after each new week; consider a model with differencing.',
       };
     case 'near-noninvertible':
       return {
         code,
         severity: 'info',
-        reason: `An MA root has modulus ${num(Number(f.modulus))} (within 1.05 of the unit circle), so the model nearly cancels its own terms.`,
+        reason: `An MA root has modulus ${Number(f.modulus).toFixed(3)} (within 1.05 of the unit circle), so the model nearly cancels its own terms.`,
         action: 'Consider forcing a simpler model with fewer terms.',
       };
     case 'residual-autocorrelation':
