@@ -13,7 +13,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { writeBenchSales } from './benchSales';
 
@@ -25,6 +25,7 @@ const dir = mkdtempSync(join(tmpdir(), 'provision-run-bench-'));
 interface Timed {
   wallSeconds: number;
   maxRssKb: number;
+  cpuSeconds: number;
   status: number | null;
   stdout: string;
   stderr: string;
@@ -38,12 +39,15 @@ function timed(args: string[]): Timed {
   });
   const wall = /Elapsed \(wall clock\) time \(h:mm:ss or m:ss\): (?:(\d+):)?(\d+):([\d.]+)/.exec(r.stderr);
   const rss = /Maximum resident set size \(kbytes\): (\d+)/.exec(r.stderr);
+  const user = /User time \(seconds\): ([\d.]+)/.exec(r.stderr);
+  const sys = /System time \(seconds\): ([\d.]+)/.exec(r.stderr);
   const wallSeconds = wall
     ? Number(wall[1] ?? 0) * 3600 + Number(wall[2]) * 60 + Number(wall[3])
     : Number.NaN;
   return {
     wallSeconds,
     maxRssKb: rss ? Number(rss[1]) : Number.NaN,
+    cpuSeconds: Number(user?.[1] ?? Number.NaN) + Number(sys?.[1] ?? Number.NaN),
     status: r.status,
     stdout: r.stdout,
     stderr: r.stderr,
@@ -55,10 +59,25 @@ function lastJson(text: string): Record<string, unknown> {
   return JSON.parse(lines[lines.length - 1]);
 }
 
+const MAX_PROJECTED = Number(process.env.BENCH_RUN_MAX_SECONDS ?? 1200);
+const load = () =>
+  loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ');
+process.stdout.write(`machine: ${availableParallelism()} cores, load average ${load()} at start\n`);
+
 const results: { n: number; wall: number; rssMb: number; msPerItemWall: number; msPerItemWorker: number }[] =
   [];
 try {
   for (const n of sizes) {
+    const prior = results[results.length - 1];
+    if (prior && (prior.wall * n) / prior.n > MAX_PROJECTED) {
+      process.stdout.write(
+        `N=${n}: SKIPPED: projected ${((prior.wall * n) / prior.n).toFixed(0)} s from N=${prior.n} exceeds ` +
+          `BENCH_RUN_MAX_SECONDS=${MAX_PROJECTED} (set it higher to measure anyway)\n`,
+      );
+      continue;
+    }
     const sales = join(dir, `sales-${n}.csv`);
     const db = join(dir, `store-${n}.sqlite`);
     const csv = join(dir, `orders-${n}.csv`);
@@ -69,6 +88,7 @@ try {
     process.stdout.write(
       `N=${n}: import ${impSummary.rowsRead} rows, ${impSummary.items} items: ${imp.wallSeconds.toFixed(1)} s, ${(imp.maxRssKb / 1024).toFixed(0)} MB\n`,
     );
+    rmSync(sales, { force: true });
     const run = timed(['run', '--store', db]);
     if (run.status !== 0) throw new Error(`run failed:\n${run.stderr.slice(-2000)}`);
     const s = lastJson(run.stdout) as {
@@ -79,10 +99,23 @@ try {
       msPerItem: number;
       itemsPerSecond: number;
     };
+    const planning = s.itemsPerSecond > 0 ? s.planned / s.itemsPerSecond : 0;
+    const rssMb = run.maxRssKb / 1024;
+    process.stdout.write(
+      `N=${n}: run ${run.wallSeconds.toFixed(1)} s wall, ${run.cpuSeconds.toFixed(1)} s CPU, peak RSS ${rssMb.toFixed(0)} MB; ` +
+        `${s.planned} planned, ${s.failed} failed, ${s.flagged} flagged\n` +
+        `        planning ${planning.toFixed(1)} s (${s.itemsPerSecond.toFixed(0)} items/s), everything else ` +
+        `${(run.wallSeconds - planning).toFixed(1)} s (start-up, reading, fingerprints, writing); ` +
+        `${((1000 * run.wallSeconds) / n).toFixed(2)} ms/item wall, ${s.msPerItem.toFixed(1)} ms/item inside a worker, ` +
+        `${((1000 * run.cpuSeconds) / n).toFixed(1)} ms CPU/item\n`,
+    );
     const plan = timed(['plan', '--store', db, '--out', csv]);
     if (plan.status !== 0) throw new Error(`plan failed:\n${plan.stderr.slice(-2000)}`);
     const rows = readFileSync(csv, 'utf8').trim().split('\r\n').length - 1;
-    const rssMb = run.maxRssKb / 1024;
+    process.stdout.write(
+      `N=${n}: plan ${plan.wallSeconds.toFixed(1)} s, ${(plan.maxRssKb / 1024).toFixed(0)} MB, ${rows} lines exported` +
+        `${rows === n ? '' : ` (EXPECTED ${n})`}\n`,
+    );
     results.push({
       n,
       wall: run.wallSeconds,
@@ -90,16 +123,7 @@ try {
       msPerItemWall: (1000 * run.wallSeconds) / n,
       msPerItemWorker: s.msPerItem,
     });
-    process.stdout.write(
-      `N=${n}: run ${run.wallSeconds.toFixed(1)} s wall (inside: ${s.seconds.toFixed(1)} s, planning ${s.itemsPerSecond.toFixed(0)} items/s), ` +
-        `peak RSS ${rssMb.toFixed(0)} MB, ${s.planned} planned, ${s.failed} failed, ${s.flagged} flagged; ` +
-        `${((1000 * run.wallSeconds) / n).toFixed(2)} ms/item wall, ${s.msPerItem.toFixed(2)} ms/item in a worker\n`,
-    );
-    process.stdout.write(
-      `N=${n}: plan ${plan.wallSeconds.toFixed(1)} s, ${(plan.maxRssKb / 1024).toFixed(0)} MB, ${rows} lines exported` +
-        `${rows === n ? '' : ` (EXPECTED ${n})`}\n`,
-    );
-    rmSync(sales, { force: true });
+    rmSync(db, { force: true });
   }
   if (results.length >= 2) {
     const a = results[0];
@@ -116,6 +140,7 @@ try {
         `${big.rssMb.toFixed(0)} MB ≤ 1024 MB: ${big.rssMb <= 1024 ? 'yes' : 'NO'}\n`,
     );
   }
+  process.stdout.write(`load average ${load()} at the end (other work on the machine slows every figure)\n`);
 } finally {
   rmSync(dir, { recursive: true, force: true });
 }
