@@ -273,7 +273,10 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const best = search;
   const arHat = search.ar;
   const maHat = search.ma;
+  // The reported likelihood from the full filter (no steady-state shortcut): exact.
+  lik.forcedSwitch = n + 1;
   const value = lik.profile(arHat, maHat);
+  lik.forcedSwitch = -1;
   const betaU = Array.from(lik.beta);
   const sigma2U = lik.sigma2;
   const loglik = lik.loglikFromObjective(value) - nobs * Math.log(scale);

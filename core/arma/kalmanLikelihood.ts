@@ -11,7 +11,7 @@
  * skip the update step and count in neither n nor Σ log F (Harvey 1989, §3.4.7).
  *
  * Speed: no allocation per step; the companion structure of T makes T P Tᵀ O(r²); once the
- * filtered covariance has vanished (trace < 1e-12, which happens within a few dozen weeks for an
+ * filtered covariance has vanished (trace < 1e-8, which happens within a few dozen weeks for an
  * MA part away from the unit circle) the gain is constant (K = R, F = 1) and the filter switches
  * to the steady-state recursion until the next missing week.
  */
@@ -21,7 +21,7 @@ import {
   stationaryCovariance,
 } from './stationaryCovariance';
 
-const STEADY_TOL = 1e-10;
+const STEADY_TOL = 1e-8;
 
 export class ArmaLikelihood {
   readonly n: number;
