@@ -6,7 +6,9 @@
  * that fails, is cancelled or is killed before that leaves the previous run as it was. Only runs
  * with status 'complete' are ever read back as "the latest run". Items whose inputs did not change
  * are carried into the new run by copying their rows (`reused` in writeRun), so every complete run
- * holds a full set of results and keeps its forecasts for later error tracking.
+ * holds a full set of results and keeps its forecasts for later error tracking. A planner's edit
+ * of a reused item's order quantity is carried with it (same line, same decision); an item planned
+ * afresh gets a new suggestion and no edit.
  */
 import type { Flag, ForecastPoint, ServiceKind, WeeklyHistory } from '../../core/plan/types';
 import { fillWeeklyGaps } from '../../core/series/gaps';
@@ -316,6 +318,11 @@ export function writeRun(
        interval_forecast, interval_sd, service_level, service_kind, explanation, detail_json
      FROM order_lines WHERE run_id = ? AND item_id = ?`,
   );
+  // A planner's edit of a reused line stays with it: the line is the same suggestion as before.
+  const copyEdit = db.prepare(
+    `INSERT INTO order_edits (run_id, item_id, order_qty, reason, actor, at)
+     SELECT ?, item_id, order_qty, reason, actor, at FROM order_edits WHERE run_id = ? AND item_id = ?`,
+  );
   const finish = db.prepare(
     `UPDATE planning_runs SET status = 'complete', finished_at = ?, items_total = ?, items_planned = ?,
        items_reused = ?, items_failed = ? WHERE id = ?`,
@@ -390,6 +397,7 @@ export function writeRun(
       copyForecasts.run(runId, fromRunId, itemId);
       copyFlags.run(runId, fromRunId, itemId);
       copyOrder.run(runId, fromRunId, itemId);
+      copyEdit.run(runId, fromRunId, itemId);
     }
     finish.run(
       header.finishedAt ?? nowIso(),

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { type RunOptions, startRun } from '../../../app/run/startRun';
-import { setSafetyStock } from '../../../app/store/overrides';
+import { editOrderQty, setSafetyStock } from '../../../app/store/overrides';
 import {
   getItemRunResult,
   getLatestRun,
@@ -49,8 +49,12 @@ describe('planning run (stand-in per-item function, tests only)', () => {
     expect(r0.candidates).toHaveLength(2);
     expect(r0.model).toMatchObject({ p: 0, d: 0, q: 0 });
 
+    editOrderQty(store, 'SKU-005', first.runId!, 123, { actor: 'test', reason: 'test' });
     const second = await run(store);
     expect([second.planned, second.reused]).toEqual([0, 30]);
+    // The planner's edit travels with the reused line.
+    const line5 = getOrderLinesBySupplier(store).groups[0].lines.find((l) => l.sku === 'SKU-005')!;
+    expect([line5.orderQty, line5.edit?.qty]).toEqual([123, 123]);
     const r0b = getItemRunResult(store, 'SKU-000')!;
     expect(r0b.runId).toBe(second.runId);
     expect(r0b.status).toBe('reused');
@@ -70,6 +74,9 @@ describe('planning run (stand-in per-item function, tests only)', () => {
 
     const forced = await run(store, { force: true });
     expect([forced.planned, forced.reused]).toEqual([30, 0]);
+    // Planned afresh: a new suggestion, no edit.
+    const fresh5 = getOrderLinesBySupplier(store).groups[0].lines.find((l) => l.sku === 'SKU-005')!;
+    expect(fresh5.edit).toBeNull();
 
     const some = await run(store, { items: ['SKU-001', 'SKU-002'], force: true });
     expect([some.planned, some.reused, some.total]).toEqual([2, 28, 30]);
