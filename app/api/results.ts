@@ -15,7 +15,7 @@ import {
   type StoredOrderLine,
 } from '../store/runs';
 import type { Store } from '../store/store';
-import type { CandidateModel, Complex, DiagnosticLine, ItemResult, OrderLine } from './contract';
+import type { CandidateModel, Complex, DiagnosticLine, ItemResult, OrderLine, ReviewEntry } from './contract';
 import { polynomialRoots } from './polynomial-roots';
 
 export interface ItemSummary {
@@ -29,16 +29,22 @@ export interface ResultsSource {
   /** SKU → what the overview shows of the latest run. */
   summaries(): Map<string, ItemSummary>;
   item(sku: string, historyWeeks: string[]): ItemResult | null;
+  /** Flagged items of the latest run, worst first (app/store/runs getReviewQueue). */
+  reviewQueue(): ReviewEntry[];
   orderLines(): OrderLine[];
   /** The order list of the latest run as the command line's `plan` exports it, planner edits applied. */
   ordersCsv(): string;
 }
 
-const SEVERITY_WEIGHT = { critical: 100, warning: 10, info: 1 } as const;
+const OVERRIDE_WORDS: Record<string, string> = {
+  'forced-model': 'the model chosen by the planner was fitted instead of the automatic choice',
+  'forecast-adjustment': "the planner's forecast adjustment was applied to the forecast and the order",
+  'safety-stock': 'the safety stock fixed by the planner was used',
+};
 
-/** Σ over flags of critical 100, warning 10, info 1 — the queue's order, the same scale as app/store/runs. */
-export function severityScore(flags: readonly Flag[]): number {
-  return flags.reduce((s, f) => s + (SEVERITY_WEIGHT[f.severity] ?? 0), 0);
+/** The run records which planner decisions it respected as codes; the screens show them in words. */
+export function overrideInWords(code: string): string {
+  return OVERRIDE_WORDS[code] ?? code;
 }
 
 export function modelLabel(m: {
@@ -204,8 +210,14 @@ export function storeResults(store: Store): ResultsSource {
         flags: r.flags,
         diagnostics: diagnosticLines(extra.diagnostics),
         order: r.order ? toOrderLine(r.order) : null,
-        overridesApplied: Array.isArray(extra.overridesApplied) ? extra.overridesApplied.map(String) : [],
+        overridesApplied: Array.isArray(extra.overridesApplied)
+          ? extra.overridesApplied.map((c) => overrideInWords(String(c)))
+          : [],
       };
+    },
+
+    reviewQueue() {
+      return run ? getReviewQueue(store, run.id) : [];
     },
 
     ordersCsv() {

@@ -43,7 +43,7 @@ import type {
   StoreInfo,
   SupplierOrders,
 } from './contract';
-import { type ResultsSource, severityScore } from './results';
+import type { ResultsSource } from './results';
 import { ServiceError } from './service-error';
 
 export interface ServiceOptions {
@@ -181,27 +181,7 @@ export function createService(options: ServiceOptions): ProvisionService {
     },
 
     async reviewQueue(): Promise<ReviewEntry[]> {
-      const items = new Map(listStoredItems(store).map((i) => [i.sku, i]));
-      const overrides = getAllOverrides(store);
-      const out: ReviewEntry[] = [];
-      for (const [sku, s] of results.summaries()) {
-        if (s.flags.length === 0) continue;
-        const it = items.get(sku);
-        if (!it) continue;
-        out.push({
-          sku,
-          description: it.description,
-          supplier: it.supplier,
-          score: severityScore(s.flags),
-          flags: s.flags,
-          reviewed: overrides.get(sku)?.reviewedAt != null,
-        });
-      }
-      // Worst first; reviewed items sink below the unreviewed of the same score.
-      out.sort(
-        (a, b) => Number(a.reviewed) - Number(b.reviewed) || b.score - a.score || a.sku.localeCompare(b.sku),
-      );
-      return out;
+      return results.reviewQueue();
     },
 
     async getItem(sku: string): Promise<ItemDetail> {
@@ -272,7 +252,10 @@ export function createService(options: ServiceOptions): ProvisionService {
         switch (d.kind) {
           case 'accept-model': {
             const r = results.item(sku, []);
-            if (!r) throw new ServiceError(`${sku}: no model to accept yet; run the plan first`);
+            if (!r?.candidates.some((c) => c.chosen))
+              throw new ServiceError(
+                `${sku}: no fitted model to accept (not planned yet, or a fallback forecast)`,
+              );
             setForcedModel(store, sku, { ...r.model }, who);
             break;
           }

@@ -27,23 +27,23 @@ export function ForecastChart(p: ForecastChartProps) {
     labels,
     datasets: [
       {
-        label: 'Upper 95%',
+        label: '95% band',
         data: fc((f) => f.upper95),
         borderWidth: 0,
         pointRadius: 0,
         fill: '+1',
         backgroundColor: c.band95,
       },
-      { label: 'Lower 95%', data: fc((f) => f.lower95), borderWidth: 0, pointRadius: 0, fill: false },
+      { label: 'lower 95%', data: fc((f) => f.lower95), borderWidth: 0, pointRadius: 0, fill: false },
       {
-        label: 'Upper 80%',
+        label: '80% band',
         data: fc((f) => f.upper80),
         borderWidth: 0,
         pointRadius: 0,
         fill: '+1',
         backgroundColor: c.band80,
       },
-      { label: 'Lower 80%', data: fc((f) => f.lower80), borderWidth: 0, pointRadius: 0, fill: false },
+      { label: 'lower 80%', data: fc((f) => f.lower80), borderWidth: 0, pointRadius: 0, fill: false },
       {
         label: 'Sales',
         data: [...p.history, ...pad(p.forecast.length)],
@@ -91,7 +91,7 @@ export function ForecastChart(p: ForecastChartProps) {
     interaction: { mode: 'index', intersect: false },
     plugins: {
       legend: {
-        labels: { color: c.ink, boxWidth: 12, filter: (item) => !item.text.startsWith('Lower') },
+        labels: { color: c.ink, boxWidth: 12, filter: (item) => !item.text.startsWith('lower') },
       },
     },
     scales: {
