@@ -13,7 +13,7 @@ import { demandWriter } from '../store/demand';
 import { createPlaceholderItems, itemIdsBySku, listStoredItems, upsertItems } from '../store/items';
 import { getWorkspaceSettings } from '../store/settings';
 import { putPosition } from '../store/stock';
-import { nowIso, type Store } from '../store/store';
+import { nowIso, type Store, withoutForeignKeys } from '../store/store';
 import { NeedDateOrder, RowContext } from './context';
 import { DateOrderEvidence } from './dateOrder';
 import type { DateOrder } from './dates';
@@ -332,7 +332,9 @@ export async function importFile(store: Store, path: string, options: ImportOpti
   const actor = options.actor ?? defaultActor();
   const extra: string[] = [];
   options.onWriting?.({ rowsRead: a.rowsRead, items: skuCount(a) });
-  store.transaction(() => {
+  // Every id written below comes from this transaction (items looked up or created, the new
+  // batch), so the per-row foreign-key lookups are skipped for the bulk write (withoutForeignKeys).
+  withoutForeignKeys(store, () => {
     const batchId = insertBatch(store, {
       kind: options.kind,
       fileName,

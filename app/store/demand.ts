@@ -5,6 +5,7 @@
  * understate demand), is null there.
  */
 import type { WeeklyHistory } from '../../core/plan/types';
+import { formatIsoDate, parseIsoDate } from '../../core/series/calendar';
 import { fillWeeklyGaps, type WeekObservation } from '../../core/series/gaps';
 import type { Store } from './store';
 
@@ -33,13 +34,43 @@ export function getDemandRows(store: Store, sku: string): DemandRow[] {
   return rows.map((r) => ({ weekStart: r.week_start, qty: r.qty, stockout: r.stockout === 1 }));
 }
 
-function toHistory(rows: DemandRow[], to: string | null): ItemHistory {
+/**
+ * Rows stored under another week start day (the workspace setting changed after they were imported)
+ * are laid on the calendar of the item's latest week: each row goes to the week that holds its
+ * start, quantities of one week are summed (missing if any part is), stockout marks combined.
+ */
+function onOneCalendar(rows: DemandRow[]): DemandRow[] {
+  if (rows.length < 2) return rows;
+  const days = rows.map((r) => parseIsoDate(r.weekStart)!);
+  const anchor = days[days.length - 1];
+  if (days.every((d) => (anchor - d) % 7 === 0)) return rows;
+  const merged = new Map<number, DemandRow>();
+  rows.forEach((r, i) => {
+    const week = days[i] - ((((days[i] - anchor) % 7) + 7) % 7);
+    const prev = merged.get(week);
+    if (!prev) merged.set(week, { weekStart: formatIsoDate(week), qty: r.qty, stockout: r.stockout });
+    else {
+      prev.qty = prev.qty === null || r.qty === null ? null : prev.qty + r.qty;
+      prev.stockout ||= r.stockout;
+    }
+  });
+  return [...merged.entries()].sort((a, b) => a[0] - b[0]).map(([, r]) => r);
+}
+
+function toHistory(stored: DemandRow[], to: string | null): ItemHistory {
+  const rows = onOneCalendar(stored);
   const obs: WeekObservation[] = rows.map((r) => ({
     weekStart: r.weekStart,
     qty: r.qty,
     stockout: r.stockout,
   }));
-  const span = to !== null && rows.length > 0 && to > rows[rows.length - 1].weekStart ? { to } : {};
+  // Extend to `to` only along this item's calendar (its last week at or before `to`).
+  let span: { to?: string } = {};
+  if (to !== null && rows.length > 0 && to > rows[rows.length - 1].weekStart) {
+    const last = parseIsoDate(rows[rows.length - 1].weekStart)!;
+    const end = parseIsoDate(to);
+    if (end !== null) span = { to: formatIsoDate(last + 7 * Math.floor((end - last) / 7)) };
+  }
   const h = fillWeeklyGaps(obs, span);
   return { ...h, stockoutWeeks: rows.filter((r) => r.stockout).map((r) => r.weekStart) };
 }

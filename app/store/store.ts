@@ -182,6 +182,21 @@ export function openStore(path: string, options: OpenOptions = {}): Store {
   };
 }
 
+/**
+ * Run `fn` in one transaction with foreign-key enforcement off, for bulk writes whose keys are
+ * correct by construction (the import's). SQLite ignores the pragma inside a transaction, so this
+ * must not be nested in one; enforcement is back on afterwards, whatever happens.
+ */
+export function withoutForeignKeys<T>(store: Store, fn: () => T): T {
+  if (store.db.inTransaction) return store.transaction(fn);
+  store.db.pragma('foreign_keys = OFF');
+  try {
+    return store.transaction(fn);
+  } finally {
+    store.db.pragma('foreign_keys = ON');
+  }
+}
+
 /** Current time as ISO 8601 UTC text, the store's timestamp format. */
 export function nowIso(): string {
   return new Date().toISOString();

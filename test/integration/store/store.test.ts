@@ -186,6 +186,18 @@ describe('store modules', () => {
     expect(all.get('A')).toEqual(a);
     expect(all.get('B')!.qty).toEqual([null]);
     expect(getWeeklyHistory(s, 'nope')).toBeNull();
+    // After a change of week start day, rows on two calendars are merged onto the latest one.
+    s.transaction(() => {
+      const id = (s.db.prepare("SELECT id FROM items WHERE sku = 'A'").get() as { id: number }).id;
+      const w = demandWriter(s);
+      w.upsert(id, '2026-11-29', 2, false, 1); // Sunday-start weeks after Monday-start ones
+      w.upsert(id, '2026-12-06', 3, false, 1);
+      w.flush();
+    });
+    const mixed = getWeeklyHistory(s, 'A')!;
+    expect(mixed.weekStart[0]).toBe('2026-11-01'); // Monday 2026-11-02 lies in the Sunday-week of 11-01
+    expect(mixed.weekStart.slice(-2)).toEqual(['2026-11-29', '2026-12-06']);
+    expect(mixed.qty.slice(-2)).toEqual([2, 3]);
     s.close();
   });
 
