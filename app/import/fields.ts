@@ -310,7 +310,8 @@ export function resolveMapping(
   for (let i = 0; i < headers.length; i++) {
     if (fixed.has(i)) continue;
     const spec = specs.find((s) => s.field === norm[i]) ?? specs.find((s) => s.synonyms.includes(norm[i]));
-    if (spec) fieldOf[i] = spec.field;
+    // A field named explicitly with --map is not also taken by a header's synonym.
+    if (spec && ![...fixed].some((j) => fieldOf[j] === spec.field)) fieldOf[i] = spec.field;
   }
   const columnOf = new Map<string, number>();
   for (let i = 0; i < headers.length; i++) {

@@ -18,8 +18,9 @@ const file = join(dir, `sales-${SKUS}x${WEEKS}.csv`);
 const store = join(dir, 'bench.sqlite');
 const root = join(import.meta.dirname, '..', '..');
 
-async function writeFile(): Promise<void> {
-  const out = createWriteStream(file);
+/** The file: one line per SKU and week, or `linesPerCell` lines (same week totals' cells, more lines). */
+async function writeFile(path: string, linesPerCell = 1): Promise<void> {
+  const out = createWriteStream(path);
   out.write('date,sku,qty,order\n');
   // Deterministic quantities (a small LCG, Numerical Recipes constants) so every run reads the same file.
   let x = 12345;
@@ -30,7 +31,8 @@ async function writeFile(): Promise<void> {
     const day = new Date((start + 7 * w + (w % 6)) * 86400000).toISOString().slice(0, 10);
     for (let s = 0; s < SKUS; s++) {
       x = (Math.imul(x, 1664525) + 1013904223) >>> 0;
-      buf += `${day},SKU-${String(s).padStart(5, '0')},${x % 97},SO-${order++}\n`;
+      for (let c = 0; c < linesPerCell; c++)
+        buf += `${day},SKU-${String(s).padStart(5, '0')},${x % 97},SO-${order++}\n`;
       if (buf.length > 1 << 16) {
         if (!out.write(buf)) await once(out, 'drain');
         buf = '';
@@ -73,7 +75,7 @@ if (!existsSync('/usr/bin/time')) {
   process.stdout.write('import bench: /usr/bin/time is not installed; skipped\n');
   process.exit(0);
 }
-if (!existsSync(file)) await writeFile();
+if (!existsSync(file)) await writeFile(file);
 for (const f of [store, `${store}-wal`, `${store}-shm`]) rmSync(f, { force: true });
 // The "existing store": the demo templates' item master, so the store exists and holds items.
 const prep = run([
@@ -99,4 +101,13 @@ process.stdout.write(
 const forced = run(['import', file, '--store', store, '--kind', 'sales', '--force']);
 process.stdout.write(
   `  forced re-import (every week replaced) → ${JSON.parse(forced.last).status} in ${forced.wall.toFixed(2)} s, peak RSS ${forced.rssMb.toFixed(0)} MB\n`,
+);
+
+// Memory must not grow with file size: the same item-weeks written as three lines each (3 M lines).
+const triple = join(dir, `sales-${SKUS}x${WEEKS}-x3.csv`);
+if (!existsSync(triple)) await writeFile(triple, 3);
+for (const f of [store, `${store}-wal`, `${store}-shm`]) rmSync(f, { force: true });
+const big = run(['import', triple, '--store', store, '--kind', 'sales']);
+process.stdout.write(
+  `  ${JSON.parse(big.last).rowsRead} lines over the same item-weeks → wall ${big.wall.toFixed(2)} s, CPU ${big.cpu.toFixed(2)} s, peak RSS ${big.rssMb.toFixed(0)} MB (vs ${r.rssMb.toFixed(0)} MB for 1 M lines)\n`,
 );

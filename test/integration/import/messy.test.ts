@@ -101,6 +101,9 @@ describe('messy sales exports', () => {
       "columns 'qty' and 'units' both map to qty; choose one, e.g. --map \"units=ignore\"",
     );
     expect((await imp(s, two, { kind: 'sales', map: { units: 'ignore' } })).status).toBe('imported');
+    // Naming a column for a field explicitly takes it from the header that would match by synonym.
+    const explicit = await imp(s, two, { kind: 'sales', map: { units: 'qty' }, force: true });
+    expect(explicit.mapping).toEqual({ week: 'week', sku: 'sku', qty: null, units: 'qty' });
     s.close();
   });
 });
