@@ -11,6 +11,8 @@ import { ensureRendererBuilt, RENDERER_OUT } from './renderer-build';
 export async function servePreview(options: { storePath: string; port?: number }): Promise<void> {
   await ensureRendererBuilt();
   const service = createAppService(resolve(options.storePath));
+  // Ready means ready: build the overview before printing the address, so it opens at once.
+  await service.listItems();
   const http = await startHttpTransport({ service, staticDir: RENDERER_OUT, port: options.port ?? 0 });
   process.stdout.write(`${http.openUrl}\n`);
   let closing = false;

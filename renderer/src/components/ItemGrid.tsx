@@ -154,7 +154,7 @@ export function ItemGrid(props: {
                 <span role="gridcell" className="mono clip">
                   {r.model ?? '–'}
                 </span>
-                <span role="gridcell">
+                <span role="gridcell" className="clip">
                   {r.flagCount > 0 && r.worstSeverity ? (
                     <span className={`sev sev-${r.worstSeverity}`}>
                       {r.flagCount} · {SEVERITY_WORDS[r.worstSeverity]}
@@ -164,7 +164,12 @@ export function ItemGrid(props: {
                   ) : (
                     ''
                   )}
-                  {r.reviewed && <span className="tick"> ✓ reviewed</span>}
+                  {r.reviewed && (
+                    <span className="tick">
+                      {' '}
+                      ✓<span className="visually-hidden"> reviewed</span>
+                    </span>
+                  )}
                 </span>
                 <span role="gridcell" className="num">
                   {units(r.orderQty)}
