@@ -251,6 +251,9 @@ export class SalesCollector {
         let earlier = false;
         for (const w of existing.keys()) if (w < fileFirstWeekIso) earlier = true;
         if (earlier) nextWeek = fileFirstWeek;
+        // Every week from here to the file's last week is written below, so the stored ones are
+        // cleared first: plain inserts are about twice as fast as resolving a conflict per row.
+        if (existing.size > 0) writer.clearRange(itemId, formatIsoDate(nextWeek), formatIsoDate(lastWeek));
       }
       while (i < this.n && Math.floor(keys[order[i]] / 65536) === skuIdx) {
         const s = order[i];

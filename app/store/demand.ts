@@ -129,6 +129,8 @@ export function getAllWeeklyHistories(
 export interface DemandWriter {
   existing(itemId: number): Map<string, { qty: number | null; stockout: boolean }>;
   upsert(itemId: number, weekStart: string, qty: number | null, stockout: boolean, batchId: number): void;
+  /** Delete an item's weeks from `from` to `to` (inclusive week starts), before rewriting all of them. */
+  clearRange(itemId: number, from: string, to: string): void;
   flush(): void;
 }
 
@@ -138,6 +140,9 @@ const UPSERT_TAIL =
 
 export function demandWriter(store: Store): DemandWriter {
   const select = store.db.prepare('SELECT week_start, qty, stockout FROM weekly_demand WHERE item_id = ?');
+  const clear = store.db.prepare(
+    'DELETE FROM weekly_demand WHERE item_id = ? AND week_start BETWEEN ? AND ?',
+  );
   const insert = (rows: number) =>
     store.db.prepare(
       `INSERT INTO weekly_demand (item_id, week_start, qty, stockout, batch_id) VALUES ${Array(rows).fill('(?, ?, ?, ?, ?)').join(', ')}${UPSERT_TAIL}`,
@@ -166,6 +171,10 @@ export function demandWriter(store: Store): DemandWriter {
     upsert(itemId, weekStart, qty, stockout, batchId) {
       pending.push(itemId, weekStart, qty, stockout ? 1 : 0, batchId);
       if (pending.length === BATCH_ROWS * 5) flush();
+    },
+    clearRange(itemId, from, to) {
+      flush();
+      clear.run(itemId, from, to);
     },
     flush,
   };
