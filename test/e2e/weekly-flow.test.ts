@@ -281,7 +281,8 @@ describe.skipIf(!chromiumPath)(
     it('6. an item: forecast chart with bands and levels, ACF, roots, candidates, flags, order line', async () => {
       await page.goto(hashUrl(preview, `#/items/${encodeURIComponent(reviewSku)}`));
       await page.waitForSelector(`[data-testid=item-detail][data-sku="${reviewSku}"] #fc-h`);
-      expect(await page.locator('.item-detail canvas').count()).toBe(3);
+      await page.locator('#acf-h').scrollIntoViewIfNeeded();
+      await page.waitForFunction(() => document.querySelectorAll('.item-detail canvas').length === 3);
       expect(await page.locator('table.compact tbody tr').count()).toBeGreaterThan(0);
       expect(await page.locator('#order-h').count()).toBe(1);
       expect(await page.locator('.explanation li').count()).toBeGreaterThan(0);

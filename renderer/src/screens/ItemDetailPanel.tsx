@@ -8,6 +8,7 @@ import type { Decision } from '../../../app/api/contract';
 import { useApi, useLoad } from '../api-context';
 import { AcfChart, ForecastChart, RootsChart } from '../charts';
 import { FlagList } from '../components/FlagList';
+import { WhenVisible } from '../components/WhenVisible';
 import { dec1, serviceLabel, units } from '../format';
 import { DecisionPanel } from './DecisionPanel';
 
@@ -158,11 +159,15 @@ export function ItemDetailPanel({ sku }: { sku: string }) {
           <div className="two-col">
             <section aria-labelledby="acf-h">
               <h3 id="acf-h">Residual autocorrelation</h3>
-              <AcfChart acf={r.residualAcf} band={r.acfBand} />
+              <WhenVisible minHeight={220}>
+                <AcfChart acf={r.residualAcf} band={r.acfBand} />
+              </WhenVisible>
             </section>
             <section aria-labelledby="roots-h">
               <h3 id="roots-h">AR and MA roots</h3>
-              <RootsChart ar={r.arRoots} ma={r.maRoots} />
+              <WhenVisible minHeight={280}>
+                <RootsChart ar={r.arRoots} ma={r.maRoots} />
+              </WhenVisible>
             </section>
           </div>
 
