@@ -103,7 +103,14 @@ export default async function importCommand(args: string[]): Promise<number> {
   try {
     const onWriting = (info: { rowsRead: number; items: number }) =>
       process.stderr.write(`read ${info.rowsRead} rows of ${info.items} items; writing to the store…\n`);
-    return finish(await importFile(store, file, { ...options, kind, map, onWriting }));
+    try {
+      return finish(await importFile(store, file, { ...options, kind, map, onWriting }));
+    } catch (err) {
+      // A fault of the machine or the store (disk full, store locked, file unreadable): the
+      // transaction rolled back, so say so plainly instead of printing a stack trace.
+      const why = err instanceof Error ? err.message : String(err);
+      return finish(rejected(`${file}: the import failed (${why}); nothing was written to ${storePath}`));
+    }
   } finally {
     store.close();
   }

@@ -128,10 +128,10 @@ async function analyse(path: string, options: ImportOptions, ws: WorkspaceSettin
     items: null,
     stock: null,
   };
-  let sniff: { delimiter: Delimiter; sample: string };
+  let sniff: { delimiter: Delimiter; sample: string; sepLine: boolean };
   try {
     const s = sniffFile(path);
-    sniff = { delimiter: s.delimiter, sample: s.sample };
+    sniff = { delimiter: s.delimiter, sample: s.sample, sepLine: s.sepLine };
   } catch (err) {
     if (err instanceof FileProblem) {
       a.report.error(err.line, null, null, err.message);
@@ -153,45 +153,52 @@ async function analyse(path: string, options: ImportOptions, ws: WorkspaceSettin
     let collect: ((cells: string[], line: number) => void) | null = null;
     let width = 0;
     try {
-      a.rowsRead = await readRecords(path, sniff.delimiter, {
-        header(cells) {
-          a.header = cells.map((c) => c.trim());
-          width = cells.length;
-          const m = resolveMapping(options.kind, cells, options.map);
-          mapping = m.mapping;
-          a.mappingEcho = echo(mapping);
-          for (const p of m.problems) report.error(1, p.column, null, p.message);
-          if (m.problems.length) throw new FileProblem('mapping');
-          ctx = new RowContext(mapping, report, a.decimal!, order, weekStartDay);
-          if (options.kind === 'sales') {
-            const s = new SalesCollector(ctx);
-            a.sales = s;
-            collect = (c, l) => s.row(c, l);
-          } else if (options.kind === 'items') {
-            const s = new ItemsCollector(ctx);
-            a.items = s;
-            collect = (c, l) => s.row(c, l);
-          } else {
-            const s = new StockCollector(ctx);
-            a.stock = s;
-            collect = (c, l) => s.row(c, l);
-          }
+      a.rowsRead = await readRecords(
+        path,
+        sniff.delimiter,
+        {
+          header(cells, headerLine) {
+            a.header = cells.map((c) => c.trim());
+            width = cells.length;
+            const m = resolveMapping(options.kind, cells, options.map);
+            mapping = m.mapping;
+            a.mappingEcho = echo(mapping);
+            for (const p of m.problems) report.error(headerLine, p.column, null, p.message);
+            if (m.problems.length) throw new FileProblem('mapping');
+            ctx = new RowContext(mapping, report, a.decimal!, order, weekStartDay);
+            if (options.kind === 'sales') {
+              const s = new SalesCollector(ctx);
+              a.sales = s;
+              collect = (c, l) => s.row(c, l);
+            } else if (options.kind === 'items') {
+              const s = new ItemsCollector(ctx);
+              a.items = s;
+              collect = (c, l) => s.row(c, l);
+            } else {
+              const s = new StockCollector(ctx);
+              a.stock = s;
+              collect = (c, l) => s.row(c, l);
+            }
+          },
+          row(cells, line) {
+            if (a.firstRows.length < PREVIEW_ROWS)
+              a.firstRows.push({ line, cells: cells.map((c) => c.trim()) });
+            // Some systems end every data line with a delimiter the header lacks: an empty extra cell.
+            if (cells.length === width + 1 && cells[width].trim() === '') cells.length = width;
+            if (cells.length !== width) {
+              report.error(
+                line,
+                null,
+                null,
+                `has ${cells.length} fields, the header has ${width}; check for an unquoted '${sniff.delimiter === '\t' ? 'tab' : sniff.delimiter}' inside a value`,
+              );
+              return;
+            }
+            collect!(cells, line);
+          },
         },
-        row(cells, line) {
-          if (a.firstRows.length < PREVIEW_ROWS)
-            a.firstRows.push({ line, cells: cells.map((c) => c.trim()) });
-          if (cells.length !== width) {
-            report.error(
-              line,
-              null,
-              null,
-              `has ${cells.length} fields, the header has ${width}; check for an unquoted '${sniff.delimiter === '\t' ? 'tab' : sniff.delimiter}' inside a value`,
-            );
-            return;
-          }
-          collect!(cells, line);
-        },
-      });
+        sniff.sepLine,
+      );
     } catch (err) {
       if (err instanceof NeedDateOrder) return 'need-order';
       if (err instanceof FileProblem) {
@@ -210,16 +217,21 @@ async function analyse(path: string, options: ImportOptions, ws: WorkspaceSettin
     const evidence = new DateOrderEvidence();
     let dateCol = -1;
     try {
-      await readRecords(path, sniff.delimiter, {
-        header(cells) {
-          const m = resolveMapping(options.kind, cells, options.map).mapping;
-          dateCol = m.columnOf.get('date') ?? m.columnOf.get('week') ?? m.columnOf.get('as_of') ?? -1;
+      await readRecords(
+        path,
+        sniff.delimiter,
+        {
+          header(cells) {
+            const m = resolveMapping(options.kind, cells, options.map).mapping;
+            dateCol = m.columnOf.get('date') ?? m.columnOf.get('week') ?? m.columnOf.get('as_of') ?? -1;
+          },
+          row(cells, line) {
+            const t = cells[dateCol]?.trim();
+            if (t) evidence.see(t, line);
+          },
         },
-        row(cells, line) {
-          const t = cells[dateCol]?.trim();
-          if (t) evidence.see(t, line);
-        },
-      });
+        sniff.sepLine,
+      );
     } catch (err) {
       if (!(err instanceof FileProblem)) throw err;
       a.report = new Report(fileName);

@@ -39,7 +39,12 @@ function head(path: string, bytes = 65536): Buffer {
 }
 
 /** Refuse encodings we do not read; return the delimiter of the header line. */
-export function sniffFile(path: string): { delimiter: Delimiter; bom: boolean; sample: string } {
+export function sniffFile(path: string): {
+  delimiter: Delimiter;
+  bom: boolean;
+  sample: string;
+  sepLine: boolean;
+} {
   const buf = head(path);
   if (buf.length === 0) throw new FileProblem('the file is empty (expected a header line and data rows)');
   if ((buf[0] === 0xff && buf[1] === 0xfe) || (buf[0] === 0xfe && buf[1] === 0xff)) {
@@ -49,6 +54,9 @@ export function sniffFile(path: string): { delimiter: Delimiter; bom: boolean; s
   const text = buf.toString('utf8', bom ? 3 : 0);
   if (text.includes('\u0000'))
     throw new FileProblem('the file is not text (it holds NUL bytes); export it as CSV');
+  // A first line "sep=;" (written by some spreadsheet exports) names the delimiter outright.
+  const sep = /^sep=([,;\t])\r?\n/i.exec(text);
+  if (sep) return { delimiter: sep[1] as Delimiter, bom, sample: text.slice(sep[0].length), sepLine: true };
   const counts: Record<Delimiter, number> = { ',': 0, ';': 0, '\t': 0 };
   let quoted = false;
   for (let i = 0; i < text.length; i++) {
@@ -60,11 +68,12 @@ export function sniffFile(path: string): { delimiter: Delimiter; bom: boolean; s
   let delimiter: Delimiter = ',';
   if (counts[';'] > counts[delimiter]) delimiter = ';';
   if (counts['\t'] > counts[delimiter]) delimiter = '\t';
-  return { delimiter, bom, sample: text };
+  return { delimiter, bom, sample: text, sepLine: false };
 }
 
 export interface RecordSink {
-  header(cells: string[]): void;
+  /** The header record; `line` is its physical line (1, or 2 after a "sep=" line). */
+  header(cells: string[], line: number): void;
   /** One data record; `line` is the physical line it starts on. */
   row(cells: string[], line: number): void;
 }
@@ -76,7 +85,12 @@ export interface RecordSink {
  * previous record's last line plus the empty lines skipped in between. (The per-record `info`
  * option gives the same numbers at about twice the parsing cost.)
  */
-export function readRecords(path: string, delimiter: Delimiter, sink: RecordSink): Promise<number> {
+export function readRecords(
+  path: string,
+  delimiter: Delimiter,
+  sink: RecordSink,
+  skipSepLine = false,
+): Promise<number> {
   return new Promise<number>((resolve, reject) => {
     const parser = parse({
       delimiter,
@@ -89,6 +103,7 @@ export function readRecords(path: string, delimiter: Delimiter, sink: RecordSink
     let prevEnd = 0;
     let prevEmpty = 0;
     let first = true;
+    let skip = skipSepLine;
     let rows = 0;
     let done = false;
     const source = createReadStream(path, { highWaterMark: 1 << 18 });
@@ -113,9 +128,13 @@ export function readRecords(path: string, delimiter: Delimiter, sink: RecordSink
       prevEnd = counters.lines;
       prevEmpty = counters.empty_lines;
       try {
+        if (skip) {
+          skip = false;
+          return;
+        }
         if (first) {
           first = false;
-          sink.header(record);
+          sink.header(record, start);
           return;
         }
         let empty = true;

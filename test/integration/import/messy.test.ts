@@ -74,6 +74,17 @@ describe('messy sales exports', () => {
     s.close();
   });
 
+  it('takes the delimiter from a "sep=" line and tolerates a delimiter at the end of each data line', async () => {
+    const s = newStore(dir);
+    const f = writeCsv(dir, 'sep.csv', 'sep=;\r\nweek;sku;qty\r\n2026-11-02;A;1,5;\r\n2026-11-02;B;x;\r\n');
+    const r = await imp(s, f, { kind: 'sales' });
+    expect(r.errors.map((e) => [e.line, e.value])).toEqual([[4, 'x']]); // physical lines: sep=1, header=2
+    const ok = writeCsv(dir, 'sep2.csv', 'sep=;\nweek;sku;qty\n2026-11-02;A;1,5;\n');
+    expect((await imp(s, ok, { kind: 'sales' })).status).toBe('imported');
+    expect(rows(s, 'A')).toEqual([['2026-11-02', 1.5, false]]);
+    s.close();
+  });
+
   it('maps columns by --map and echoes the mapping; reports bad --map entries', async () => {
     const s = newStore(dir);
     const f = writeCsv(dir, 'map.csv', 'Period,Article,Pcs,Comment\n2026-11-02,A,3,fine\n');
