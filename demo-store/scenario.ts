@@ -88,6 +88,8 @@ const SEASONAL_NAMES = [
   'Cherry Compote',
 ];
 
+const SPECIALITY: Category[] = ['fillings', 'grains & seeds', 'yeasts & leavens'];
+
 const round = (x: number, frac: boolean) => (frac ? Math.round(x * 10) / 10 : Math.round(x));
 
 /** Holiday-baking multiplier: a bell around ISO week 50 plus a smaller one around Easter (week 13). */
@@ -126,8 +128,8 @@ export function generateScenario(seed = DEMO_SEED): DemoScenario {
         ? 'ar'
         : r < 0.32
           ? 'ma'
-          : r < 0.37
-            ? 'intermittent'
+          : r < 0.45 && smallPack && SPECIALITY.includes(d.spec.category)
+            ? 'intermittent' // small packs of specialities sell now and then
             : 'steady';
     const cost = d.spec.unitCost[0] + rng.next() * (d.spec.unitCost[1] - d.spec.unitCost[0]);
     items.push({
@@ -162,7 +164,7 @@ export function generateScenario(seed = DEMO_SEED): DemoScenario {
     const list = items.filter((it) => it.sku.startsWith(prefix));
     return list[k % list.length];
   };
-  bySku('FLR', 12).pattern = 'trend'; // spelt flour: rising
+  bySku('FLR', 12).pattern = 'trend'; // rising with the taste for ancient grains
   bySku('GRS', 15).pattern = 'trend';
   bySku('SUG', 3).pattern = 'spike';
   bySku('FIL', 7).pattern = 'new';
