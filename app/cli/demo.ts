@@ -2,6 +2,7 @@
  * `npm run -s cli -- demo --store FILE [--replace] [--exports DIR]`: build the demo bakery-supply
  * store through the real import path. Prints each import's summary line and the totals (JSON last).
  */
+import { existsSync } from 'node:fs';
 import { buildDemoStore } from '../../demo-store/build';
 
 export default async function demoCommand(args: string[]): Promise<number> {
@@ -22,6 +23,12 @@ export default async function demoCommand(args: string[]): Promise<number> {
   if (!store) {
     process.stderr.write('usage: npm run -s cli -- demo --store FILE [--replace] [--exports DIR]\n');
     return 2;
+  }
+  if (!replace && existsSync(store)) {
+    process.stderr.write(
+      `demo: ${store} already exists; choose another file, or pass --replace to rebuild it\n`,
+    );
+    return 1;
   }
   try {
     const s = await buildDemoStore(store, { exportsDir, replace });
