@@ -31,6 +31,18 @@ function parseWeek(text: string): number | null {
   return m ? isoWeekMonday(+m[1], +m[2]) : null;
 }
 
+/** Rows of a CSV text with no quote characters (BOM dropped, empty lines skipped, fields trimmed). */
+export function splitPlainCsv(text: string): string[][] {
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  const rows: string[][] = [];
+  for (const line of body.split('\n')) {
+    const clean = line.endsWith('\r') ? line.slice(0, -1) : line;
+    if (clean.trim() === '') continue;
+    rows.push(clean.split(',').map((f) => f.trim()));
+  }
+  return rows;
+}
+
 export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySeries {
   let text: string;
   try {
@@ -42,10 +54,17 @@ export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySerie
     );
   }
   let rows: string[][];
-  try {
-    rows = parse(text, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true });
-  } catch (err) {
-    throw new CsvInputError(`${file}: not a readable CSV file (${(err as Error).message})`);
+  if (text.indexOf('"') < 0) {
+    // Without a quote character RFC 4180 reduces to commas between fields and line breaks between
+    // records; splitting is several times faster than the general parser, which matters when
+    // thousands of files are fitted in one call. Anything quoted goes to csv-parse.
+    rows = splitPlainCsv(text);
+  } else {
+    try {
+      rows = parse(text, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true });
+    } catch (err) {
+      throw new CsvInputError(`${file}: not a readable CSV file (${(err as Error).message})`);
+    }
   }
   if (rows.length === 0) throw new CsvInputError(`${file}: line 1: the file is empty; expected a header row`);
   const header = rows[0];

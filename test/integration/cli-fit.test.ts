@@ -7,6 +7,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readWeeklyCsv } from '../../app/cli/fit-csv';
 import { simulateArma } from '../../core/arma';
 
 const root = join(import.meta.dirname, '..', '..');
@@ -122,6 +123,23 @@ describe('npm run cli -- fit', () => {
     expect(r.stderr).toContain(
       `${join(dir, 'baddate.csv')}: line 3: field 'week': '2023-13-09' is not a date`,
     );
+  });
+
+  it('reads quoted CSV (csv-parse) and plain CSV (fast split) to the same series, BOM and CRLF included', () => {
+    writeFileSync(
+      join(dir, 'quoted.csv'),
+      '\ufeff"week","qty"\r\n"2024-01-01",5\r\n2024-01-08,"6"\r\n\r\n2024-01-22,7\r\n',
+    );
+    writeFileSync(
+      join(dir, 'plain.csv'),
+      '\ufeffweek,qty\r\n2024-01-01, 5\r\n2024-01-08,6\r\n\r\n2024-01-22,7\r\n',
+    );
+    const opts = { dateColumn: 'week', valueColumn: 'qty' };
+    const quoted = Array.from(readWeeklyCsv(join(dir, 'quoted.csv'), opts).values);
+    const plain = Array.from(readWeeklyCsv(join(dir, 'plain.csv'), opts).values);
+    // 2024-01-15 is skipped: a missing week.
+    expect(quoted).toEqual([5, 6, Number.NaN, 7]);
+    expect(plain).toEqual(quoted);
   });
 
   it('rejects a bad --order with a usage message', () => {
