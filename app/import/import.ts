@@ -362,7 +362,7 @@ export async function importFile(store: Store, path: string, options: ImportOpti
       for (const [sku, id] of createPlaceholderItems(store, unknown, batchId)) ids.set(sku, id);
       const shown = unknown.slice(0, 5).join(', ') + (unknown.length > 5 ? ', …' : '');
       extra.push(
-        `${unknown.length} SKUs were not in the item master and were added as placeholder items on the workspace defaults (lead time ${ws.leadTimeWeeks} weeks, service level ${ws.serviceLevel}, case pack 1, no MOQ) with a zero inventory position until a stock file says otherwise: ${shown}`,
+        `${unknown.length} SKUs were not in the item master and were added as placeholder items on the workspace defaults (lead time ${ws.leadTimeWeeks} weeks, service level of the ABC class or ${ws.serviceLevel}, case pack 1, no MOQ) with a zero inventory position until a stock file says otherwise: ${shown}`,
       );
     }
     let detail: Record<string, unknown> = {};

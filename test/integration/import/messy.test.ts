@@ -268,7 +268,7 @@ describe('duplicates, re-imports, stockouts, negatives, unknown SKUs', () => {
     const r = await imp(s, f, { kind: 'sales' });
     expect(r.warnings).toEqual([
       '1 rows have an empty quantity, stored as missing weeks (line 3)',
-      '2 SKUs were not in the item master and were added as placeholder items on the workspace defaults (lead time 3 weeks, service level 0.95, case pack 1, no MOQ) with a zero inventory position until a stock file says otherwise: NEW-1, NEW-2',
+      '2 SKUs were not in the item master and were added as placeholder items on the workspace defaults (lead time 3 weeks, service level of the ABC class or 0.95, case pack 1, no MOQ) with a zero inventory position until a stock file says otherwise: NEW-1, NEW-2',
     ]);
     expect(getStoredItem(s, 'NEW-1')).toMatchObject({ placeholder: true, active: true });
     expect(getItemSettings(s, 'NEW-1')).toMatchObject({ leadTimeWeeks: 3, casePack: 1, moq: 0 });
