@@ -325,7 +325,41 @@ describe.skipIf(!chromiumPath)(
       await shoot('07-decisions');
     });
 
-    it('8. the next run respects the adjustment and says so', async () => {
+    let modelSku = '';
+    let pickedModel = '';
+
+    it('7b. another candidate model and a safety stock fixed by hand, each with a reason', async () => {
+      type Detail = { result: { candidates: { label: string; chosen: boolean }[] } | null };
+      for (const sku of activeSkus) {
+        if (sku === reviewSku) continue;
+        const d = await api<Detail>(preview, 'getItem', [sku]);
+        const other = d.result?.candidates.find((c) => !c.chosen);
+        if (other) {
+          modelSku = sku;
+          pickedModel = other.label;
+          break;
+        }
+      }
+      expect(modelSku, 'an item whose run kept more than one candidate model').not.toBe('');
+      await page.goto(hashUrl(preview, `#/items/${encodeURIComponent(modelSku)}`));
+      await page.waitForSelector(`[data-testid=item-detail][data-sku="${modelSku}"] #fc-h`);
+      await page.getByLabel('Reason for the decision').fill('e2e: simpler model, known safety margin');
+      await page.getByLabel('Use another candidate').selectOption(pickedModel);
+      await page.getByRole('button', { name: 'Use for the next run' }).click();
+      await page.waitForSelector('text=Model fixed by the planner');
+      await page.getByLabel('Safety stock fixed by hand (units)').fill('55');
+      await page.getByRole('button', { name: 'Fix safety stock' }).click();
+      await page.waitForFunction(() =>
+        document.querySelector('.audit')?.textContent?.includes('Safety stock fixed by hand'),
+      );
+      const audit = await page.locator('.audit li').allTextContents();
+      expect(audit.some((a) => a.includes('Model fixed') && a.includes('simpler model'))).toBe(true);
+      expect(audit.some((a) => a.includes('Safety stock fixed by hand') && a.includes('→ 55 units'))).toBe(
+        true,
+      );
+    });
+
+    it('8. the next run respects the decisions and says so', async () => {
       await api(preview, 'startRun', [{ force: false }]);
       const t0 = Date.now();
       for (;;) {
@@ -341,6 +375,13 @@ describe.skipIf(!chromiumPath)(
         result: { overridesApplied: string[]; forecast: { week: string; mean: number }[] };
       }>(preview, 'getItem', [reviewSku]);
       expect(detail.result.overridesApplied.length).toBeGreaterThan(0);
+      const forced = await api<{
+        result: { model: { label: string }; order: { safetyStock: number }; overridesApplied: string[] };
+      }>(preview, 'getItem', [modelSku]);
+      expect(forced.result.model.label).toBe(pickedModel);
+      expect(forced.result.order.safetyStock).toBe(55);
+      expect(forced.result.overridesApplied.join(' ')).toContain('model chosen by the planner');
+      expect(forced.result.overridesApplied.join(' ')).toContain('safety stock fixed by the planner');
     }, 150_000);
 
     it('9. the decisions survive a restart of the server', async () => {
