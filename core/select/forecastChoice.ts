@@ -7,8 +7,12 @@ import type { ModelChoice } from './modelChoice';
 
 /**
  * Forecasts from a ModelChoice, whatever its kind, with a finite standard error always:
- *   arma: the engine's h-step means and ψ-weight standard errors, Fourier terms continued from the
- *         calendar date of the last history week;
+ *   arma: the engine's h-step means and standard errors, Fourier terms continued from the
+ *         calendar date of the last history week; for an automatically chosen model the variance is
+ *         widened by Akaike's final-prediction-error factor (n + k)/(n − k) (Akaike 1969, Ann. Inst.
+ *         Stat. Math. 21), k the estimated mean, ARMA and regression coefficients, n the observations,
+ *         an allowance for estimation error that the plug-in variance leaves out (forced models keep
+ *         the engine's plug-in variance, as base R's predict reports it);
  *   intermittent: the method's flat rate per week, se from its own one-step errors (the same for
  *         every step: a rate forecast's single-week error does not grow with the horizon);
  *   fallback: the engine's fallback forecast, or the mean with the history's spread.
@@ -31,10 +35,11 @@ export function forecastChoice(choice: ModelChoice, horizon: number): ChoiceFore
   if (choice.fit) {
     try {
       const f = forecastArma(choice.fit, h, futureXregOf(choice, h));
+      const widen = Math.sqrt(estimationAllowance(choice));
       let ok = true;
       for (let i = 0; i < h; i++) {
         mean[i] = f.mean[i];
-        se[i] = f.se[i];
+        se[i] = f.se[i] * widen;
         if (!Number.isFinite(mean[i]) || !Number.isFinite(se[i])) ok = false;
       }
       if (ok) return { mean, se };
@@ -74,18 +79,28 @@ export function leadTimeMomentsChoice(
       // From the first week the engine's exact finite-sample propagation is available.
       try {
         const m = leadTimeMoments(fit, b, futureXregOf(choice, b));
-        if (Number.isFinite(m.mean) && Number.isFinite(m.variance)) return m;
+        const variance = m.variance * estimationAllowance(choice);
+        if (Number.isFinite(m.mean) && Number.isFinite(variance)) return { mean: m.mean, variance };
       } catch {
         // fall through to the ψ-weight form
       }
     }
     const psi = psiWeights(fit.ar, fit.ma, b, fit.order.d);
-    const variance = windowSumVariance(psi, fit.sigma2, a, b);
+    const variance = windowSumVariance(psi, fit.sigma2, a, b) * estimationAllowance(choice);
     if (Number.isFinite(variance)) return { mean, variance };
   }
   let variance = 0;
   for (let h = a; h <= b; h++) variance += f.se[h - 1] ** 2;
   return { mean, variance };
+}
+
+/** Akaike's FPE factor (n + k)/(n − k) for automatically chosen ARMA models, 1 otherwise. */
+export function estimationAllowance(choice: ModelChoice): number {
+  const fit = choice.fit;
+  if (choice.kind !== 'arma' || !fit || choice.selection.search === 'forced') return 1;
+  const n = fit.nobs;
+  const k = Math.max(0, fit.nparams - 1); // σ² is not a coefficient of the predictor
+  return n - k > 0 ? (n + k) / (n - k) : 1;
 }
 
 function futureXregOf(choice: ModelChoice, horizon: number): Float64Array[] | undefined {

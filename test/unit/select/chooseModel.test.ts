@@ -4,7 +4,11 @@ import { simulateArma } from '../../../core/arma/simulate';
 import { diagnoseChoice } from '../../../core/diagnose/diagnoseChoice';
 import { chooseModel, MIN_ROOT_MODULUS, NEAR_TIE } from '../../../core/select/chooseModel';
 import { minRootModulus } from '../../../core/select/engine';
-import { forecastChoice, leadTimeMomentsChoice } from '../../../core/select/forecastChoice';
+import {
+  estimationAllowance,
+  forecastChoice,
+  leadTimeMomentsChoice,
+} from '../../../core/select/forecastChoice';
 
 const weeks = (n: number, start = Date.UTC(2022, 0, 3)): string[] =>
   Array.from({ length: n }, (_, i) => new Date(start + i * 7 * 86_400_000).toISOString().slice(0, 10));
@@ -61,13 +65,18 @@ describe('chooseModel: the selection rules', () => {
     expect(f.order).toEqual({ p: 0, d: 0, q: 1 });
     expect(f.selection.search).toBe('forced');
     expect(f.selection.candidates.length).toBe(1);
+    expect(estimationAllowance(f)).toBe(1);
   });
 
   it('lead-time moments from week 1 equal the engine; a later window is consistent with its weeks', () => {
     const m = leadTimeMomentsChoice(c, 1, 4);
     const e = leadTimeMoments(c.fit!, 4);
     expect(m.mean).toBeCloseTo(e.mean, 8);
-    expect(m.variance).toBeCloseTo(e.variance, 8);
+    // Automatic choices widen the engine's variance by Akaike's FPE factor (n + k)/(n − k).
+    const k = c.fit!.nparams - 1;
+    const n = c.fit!.nobs;
+    expect(estimationAllowance(c)).toBeCloseTo((n + k) / (n - k), 12);
+    expect(m.variance).toBeCloseTo(e.variance * ((n + k) / (n - k)), 8);
     const f = forecastChoice(c, 6);
     const w = leadTimeMomentsChoice(c, 3, 6);
     expect(w.mean).toBeCloseTo(f.mean[2] + f.mean[3] + f.mean[4] + f.mean[5], 8);
