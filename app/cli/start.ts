@@ -48,7 +48,10 @@ async function main(): Promise<void> {
   child.on('exit', (code) => process.exit(code ?? 0));
 }
 
-main().catch((err: unknown) => {
-  process.stderr.write(`${err instanceof Error ? err.message : String(err)}\n`);
-  process.exit(1);
-});
+const isMain = process.argv[1] && import.meta.filename === process.argv[1];
+if (isMain) {
+  main().catch((err: unknown) => {
+    process.stderr.write(`${err instanceof Error ? err.message : String(err)}\n`);
+    process.exit(1);
+  });
+}
