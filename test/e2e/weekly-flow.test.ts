@@ -147,7 +147,7 @@ describe.skipIf(!chromiumPath)(
       await axeScan('items');
     });
 
-    it('2. a rejected import shows every problem with its line number and changes nothing', async () => {
+    it('2. a rejected import (dropped file) shows every problem with its line number and changes nothing', async () => {
       const bad = join(dir, 'bad-week.csv');
       const week = addDays(lastWeek, 7);
       writeFileSync(
@@ -162,7 +162,16 @@ describe.skipIf(!chromiumPath)(
       );
       const before = storeDump();
       await page.goto(hashUrl(preview, '#/import'));
-      await page.setInputFiles('input[type=file]', bad);
+      // dropped onto the drop zone, as from a file manager
+      const dataTransfer = await page.evaluateHandle(
+        ({ name, text }) => {
+          const dt = new DataTransfer();
+          dt.items.add(new File([text], name, { type: 'text/csv' }));
+          return dt;
+        },
+        { name: 'bad-week.csv', text: readFileSync(bad, 'utf8') },
+      );
+      await page.dispatchEvent('.dropzone', 'drop', { dataTransfer });
       await page.waitForSelector('.problems');
       const problems = await page.locator('.problems li').allTextContents();
       expect(problems.some((p) => p.startsWith('line 3:') && p.includes('twelve'))).toBe(true);
