@@ -7,6 +7,7 @@
 import { planItem } from '../../core/plan/planItem';
 import type { ItemPlan } from '../../core/plan/types';
 import type { ItemRunRecord, ModelRecord } from '../store/runs';
+import { checkRunRecord } from './checkRecord';
 import type { RunItemInput } from './runInput';
 
 type ModelKey = string;
@@ -189,5 +190,7 @@ export function planTask(input: RunItemInput): ItemRunRecord {
     abcClass: input.abcClass,
     pastForecasts: input.pastForecasts,
   });
-  return toRunRecord(plan, input);
+  const record = toRunRecord(plan, input);
+  checkRunRecord(input.settings.sku, record);
+  return record;
 }

@@ -202,7 +202,12 @@ async function execute(
       workspace.abcCutoffs,
     );
 
-    const toPlan: { itemId: number; fingerprint: string; input: RunItemInput | null }[] = [];
+    const toPlan: {
+      itemId: number;
+      fingerprint: string;
+      input: RunItemInput | null;
+      settings: RunItemInput['settings'];
+    }[] = [];
     const reused: ReusedEntry[] = [];
     let sinceYield = 0;
     for (const it of items) {
@@ -241,7 +246,7 @@ async function execute(
         reused.push({ itemId: id, fromRunId: previous.id });
         continue;
       }
-      toPlan.push({ itemId: id, fingerprint, input });
+      toPlan.push({ itemId: id, fingerprint, input, settings });
     }
     summary.total = toPlan.length + reused.length;
     summary.reused = reused.length;
@@ -301,11 +306,20 @@ async function execute(
       if (p.record.flags.length > 0) summary.flagged++;
     }
     summary.planned = planned.length;
+    const settingsById = new Map(toPlan.map((p) => [p.itemId, p.settings]));
     summary.runId = writeRun(
       store,
       { startedAt, actor: options.actor ?? null, settings: settingsSnapshot, note: null },
       planned,
       reused,
+      (itemId, err) => {
+        const settings = settingsById.get(itemId);
+        if (!settings) return null;
+        summary.failed++;
+        summary.flagged++;
+        const message = `the store refused its results: ${err instanceof Error ? err.message : String(err)}`;
+        return failedItemRecord(settings, 'threw', message, workspace.serviceLevel);
+      },
     );
     summary.status = 'complete';
     summary.itemsPerSecond = planSeconds > 0 ? planned.length / planSeconds : 0;

@@ -265,6 +265,8 @@ export function writeRun(
   header: RunHeader,
   planned: Iterable<PlannedEntry>,
   reused: readonly ReusedEntry[],
+  /** A stand-in record for an item whose rows the store refused (none given: the write fails). */
+  onItemError?: (itemId: number, err: unknown) => ItemRunRecord | null,
 ): number {
   const db = store.db;
   const insRun = db.prepare(
@@ -335,9 +337,7 @@ export function writeRun(
     );
     let nPlanned = 0;
     let nFailed = 0;
-    for (const { itemId, fingerprint, record: r } of planned) {
-      nPlanned++;
-      if (r.status === 'failed') nFailed++;
+    const insertPlanned = (itemId: number, fingerprint: string, r: ItemRunRecord) => {
       insItem.run(runId, itemId, fingerprint, r.status, r.diagnosticsJson, r.error);
       for (const m of r.models) {
         insModel.run(
@@ -388,6 +388,21 @@ export function writeRun(
           o.detailJson,
         );
       }
+    };
+    const itemExists = db.prepare('SELECT 1 FROM items WHERE id = ?');
+    for (const { itemId, fingerprint, record } of planned) {
+      // Each item in a savepoint: rows the schema refuses cost that item, never the run.
+      try {
+        store.transaction(() => insertPlanned(itemId, fingerprint, record));
+        if (record.status === 'failed') nFailed++;
+      } catch (err) {
+        if (!itemExists.get(itemId)) continue; // deleted while the run was planning: nothing to keep
+        const replacement = onItemError?.(itemId, err);
+        if (!replacement) throw err;
+        store.transaction(() => insertPlanned(itemId, fingerprint, replacement));
+        nFailed++;
+      }
+      nPlanned++;
     }
     for (const { itemId, fromRunId } of reused) {
       if (copyItem.run(runId, fromRunId, itemId).changes !== 1) {

@@ -114,12 +114,12 @@ describe('planning run (stand-in per-item function, tests only)', () => {
   });
 
   it('isolates items that throw or kill their worker: fallback line and flag, the others planned', async () => {
-    const list = [...skus(20), 'BAD-THROW', 'BAD-EXIT'];
+    const list = [...skus(20), 'BAD-THROW', 'BAD-EXIT', 'BAD-NAN'];
     const store = makeStore(join(dir, 'isolate.sqlite'), list, 30);
     const s = await run(store, { batchSize: 3 });
     expect(s.status).toBe('complete');
-    expect([s.planned, s.failed]).toEqual([22, 2]);
-    for (const sku of ['BAD-THROW', 'BAD-EXIT']) {
+    expect([s.planned, s.failed]).toEqual([23, 3]);
+    for (const sku of ['BAD-THROW', 'BAD-EXIT', 'BAD-NAN']) {
       const r = getItemRunResult(store, sku)!;
       expect(r.status).toBe('failed');
       expect(r.flags.map((f) => [f.code, f.severity])).toEqual([['plan-failed', 'critical']]);
@@ -127,13 +127,15 @@ describe('planning run (stand-in per-item function, tests only)', () => {
       expect(r.forecast).toEqual([]);
     }
     expect(getItemRunResult(store, 'BAD-THROW')!.error).toContain('stand-in cannot plan BAD-THROW');
+    // A NaN forecast is refused by the store (NOT NULL); only that item pays for it.
+    expect(getItemRunResult(store, 'BAD-NAN')!.error).toContain('the store refused its results');
     expect(skus(20).every((k) => getItemRunResult(store, k)!.status === 'planned')).toBe(true);
     const queue = getReviewQueue(store);
-    expect(queue.slice(0, 2).map((q) => q.sku)).toEqual(['BAD-EXIT', 'BAD-THROW']); // critical first, then SKU
+    expect(queue.slice(0, 3).map((q) => q.sku)).toEqual(['BAD-EXIT', 'BAD-NAN', 'BAD-THROW']); // critical first, then SKU
     const orders = getOrderLinesBySupplier(store);
     expect(orders.groups).toHaveLength(1);
     expect(orders.groups[0].supplier).toBeNull();
-    expect(orders.groups[0].lines).toHaveLength(22);
+    expect(orders.groups[0].lines).toHaveLength(23);
     store.close();
   });
 
