@@ -87,6 +87,21 @@ describe('chooseModel: the selection rules', () => {
   });
 });
 
+describe('chooseModel: unsound candidates are passed over', () => {
+  it('never picks a model with a root modulus below 1.01 over a sound one, and says why', () => {
+    // A noise-free sequence of period 11: ARMA fits to it end on the MA unit circle (modulus 1.000…)
+    // with a far lower AICc, the situation the issue describes for general-purpose fitters.
+    const y = Array.from({ length: 156 }, (_, i) => 50 + ((i * 37) % 11));
+    const c = chooseModel(y, weeks(156), { seasonal: false });
+    expect(c.kind).toBe('arma');
+    expect(minRootModulus(c.fit!.ma)).toBeGreaterThanOrEqual(MIN_ROOT_MODULUS);
+    expect(minRootModulus(c.fit!.ar)).toBeGreaterThanOrEqual(MIN_ROOT_MODULUS);
+    const passed = c.selection.candidates.filter((k) => k.passedOver && /root modulus/.test(k.passedOver));
+    expect(passed.length).toBeGreaterThan(0);
+    for (const k of passed) expect(k.aicc!).toBeLessThan(c.fit!.aicc);
+  });
+});
+
 describe('chooseModel: annual cycle', () => {
   it('chooses Fourier terms on a 3-year series with a strong annual cycle and continues it', () => {
     const n = 156;
