@@ -30,16 +30,16 @@ export function hannanRissanen(u: Float64Array, p: number, q: number): { ar: num
   const n = u.length;
   const x = new Float64Array(n);
   for (let t = 0; t < n; t++) x[t] = Number.isNaN(u[t]) ? 0 : u[t];
-  const gamma = sampleAutocovariance(x, Math.min(n - 1, 40), false);
+  const m = Math.max(p + q + 1, Math.min(Math.floor(n / 4), Math.ceil(10 * Math.log10(n)), 30));
+  const gamma = sampleAutocovariance(x, Math.min(n - 1, q === 0 ? p : m), false);
   if (!(gamma[0] > 0)) return null;
   if (q === 0) {
     // Pure AR: Yule–Walker directly (the second stage would only repeat the regression).
     const phi = yuleWalker(gamma, p);
     return { ar: Array.from(phi), ma: [] };
   }
-  const m = Math.max(p + q + 1, Math.min(Math.floor(n / 4), Math.ceil(10 * Math.log10(n)), 30));
   if (m >= n - 1) return null;
-  const longAr = yuleWalker(sampleAutocovariance(x, m, false), m);
+  const longAr = yuleWalker(gamma, m);
   const e = new Float64Array(n);
   for (let t = m; t < n; t++) {
     let s = x[t];

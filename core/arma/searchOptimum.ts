@@ -4,8 +4,10 @@
  * Monahan 1984). ARMA likelihoods are often multimodal (an AR-led and an MA-led optimum, or an
  * optimum with a near-common AR/MA factor in a far corner of the π-cube), so BFGS runs from
  * several starts and the best optimum is kept:
- *   - Hannan–Rissanen (1982) two-stage regression; zero; the Yule–Walker AR(p) with θ = 0; an
- *     AR-led corner (π_1 = 0.9); the Hannan–Rissanen MA(q) with φ = 0;
+ *   - Hannan–Rissanen (1982) two-stage regression; zero; the Yule–Walker AR(p) with θ = 0; and for
+ *     p + q > 2 also an AR-led corner (π_1 = 0.9) and the Hannan–Rissanen MA(q) with φ = 0;
+ *   - with more than three starts, every start gets five BFGS iterations and the best three
+ *     distinct candidates run to convergence (for p + q ≤ 4; larger orders run every start);
  *   - for p + q ≥ 5, the optimum of ARMA(p−1, q−1) multiplied on both sides by a common factor
  *     (1 − cz) (which leaves the likelihood unchanged, so the search starts at the lower-order
  *     optimum and moves away from it), and the best points of a Halton (1960) screening design.
@@ -86,9 +88,9 @@ function basicStarts(u: Float64Array, p: number, q: number): Float64Array[] {
     if (yw) push(yw.ar, zeroMa);
     const near = new Array<number>(p).fill(0);
     near[0] = 0.9;
-    push(near, zeroMa);
+    if (p + q > 2) push(near, zeroMa);
   }
-  if (q > 0) {
+  if (q > 0 && p + q > 2) {
     const hm = hannanRissanen(u, 0, q);
     if (hm) push(zeroAr, hm.ma);
   }
