@@ -390,19 +390,30 @@ export function writeRun(
       }
     };
     const itemExists = db.prepare('SELECT 1 FROM items WHERE id = ?');
-    for (const { itemId, fingerprint, record } of planned) {
-      // Each item in a savepoint: rows the schema refuses cost that item, never the run.
-      try {
-        store.transaction(() => insertPlanned(itemId, fingerprint, record));
-        if (record.status === 'failed') nFailed++;
-      } catch (err) {
-        if (!itemExists.get(itemId)) continue; // deleted while the run was planning: nothing to keep
-        const replacement = onItemError?.(itemId, err);
-        if (!replacement) throw err;
-        store.transaction(() => insertPlanned(itemId, fingerprint, replacement));
-        nFailed++;
+    const list = [...planned];
+    try {
+      // Fast path: all items in one savepoint.
+      store.transaction(() => {
+        for (const { itemId, fingerprint, record } of list) insertPlanned(itemId, fingerprint, record);
+      });
+      nPlanned = list.length;
+      nFailed = list.filter((p) => p.record.status === 'failed').length;
+    } catch {
+      // Some item's rows were refused: again item by item, each in its own savepoint, so that
+      // item pays for it and the run does not.
+      for (const { itemId, fingerprint, record } of list) {
+        try {
+          store.transaction(() => insertPlanned(itemId, fingerprint, record));
+          if (record.status === 'failed') nFailed++;
+        } catch (err) {
+          if (!itemExists.get(itemId)) continue; // deleted while the run was planning: nothing to keep
+          const replacement = onItemError?.(itemId, err);
+          if (!replacement) throw err;
+          store.transaction(() => insertPlanned(itemId, fingerprint, replacement));
+          nFailed++;
+        }
+        nPlanned++;
       }
-      nPlanned++;
     }
     for (const { itemId, fromRunId } of reused) {
       if (copyItem.run(runId, fromRunId, itemId).changes !== 1) {
