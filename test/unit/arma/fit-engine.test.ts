@@ -148,6 +148,23 @@ describe('forecasts', () => {
   });
 });
 
+describe('regressors (GLS through the same filter)', () => {
+  it('recovers a regressor coefficient within three standard errors and forecasts with its future values', () => {
+    const n = 400;
+    const x = Float64Array.from({ length: n + 4 }, (_, t) => Math.sin((2 * Math.PI * t) / 52));
+    const e = simulateArma({ ar: [0.5], ma: [], sigma2: 1, mean: 30 }, n, 51);
+    const y = Float64Array.from(e, (v, t) => v + 5 * x[t]);
+    const fit = fitArma(y, { p: 1, d: 0, q: 0, xreg: [x.subarray(0, n)] });
+    expect(Math.abs(fit.xregCoef[0] - 5)).toBeLessThan(3 * fit.stderr.xreg[0]);
+    const fc = forecastArma(fit, 4, [x.subarray(n)]);
+    // AR(1) errors u = y − μ − βx: ŷ_{n+h} = μ + β x_{n+h} + φ^h u_n (Box, Jenkins & Reinsel ch. 5).
+    const uLast = y[n - 1] - fit.mean! - fit.xregCoef[0] * x[n - 1];
+    const h4 = fit.mean! + fit.xregCoef[0] * x[n + 3] + fit.ar[0] ** 4 * uLast;
+    expect(fc.mean[3]).toBeCloseTo(h4, 8);
+    expect(() => forecastArma(fit, 4)).toThrow(RangeError);
+  });
+});
+
 describe('lead-time demand: the SUM of the next L weeks', () => {
   // AR(1) with φ = 0.8 (the example).
   const y = simulateArma({ ar: [0.8], ma: [], sigma2: 1, mean: 40 }, 600, 41);
