@@ -8,6 +8,7 @@ import { planItem } from '../../core/plan/planItem';
 import type { ItemPlan } from '../../core/plan/types';
 import type { ItemRunRecord, ModelRecord } from '../store/runs';
 import { checkRunRecord } from './checkRecord';
+import { expandHistory } from './compactHistory';
 import type { RunItemInput } from './runInput';
 
 type ModelKey = string;
@@ -183,7 +184,7 @@ export function toRunRecord(plan: ItemPlan, input: RunItemInput): ItemRunRecord 
 export function planTask(input: RunItemInput): ItemRunRecord {
   const plan = planItem({
     settings: input.settings,
-    history: input.history,
+    history: expandHistory(input.history),
     position: input.position,
     overrides: input.overrides,
     workspace: input.workspace,

@@ -7,10 +7,10 @@ import type {
   InventoryPosition,
   ItemSettings,
   PlanningOverrides,
-  WeeklyHistory,
   WorkspaceSettings,
 } from '../../core/plan/types';
 import type { AbcClass } from '../../core/replenish/abc';
+import type { CompactHistory } from './compactHistory';
 
 /** A forecast an earlier run made for a week that is now observed (smallest step per week). */
 export interface RunPastForecast {
@@ -22,7 +22,8 @@ export interface RunPastForecast {
 
 export interface RunItemInput {
   settings: ItemSettings;
-  history: WeeklyHistory;
+  /** Contiguous weekly history, week starts implied (see ./compactHistory). */
+  history: CompactHistory;
   position: InventoryPosition;
   overrides: PlanningOverrides;
   workspace: WorkspaceSettings;

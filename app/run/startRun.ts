@@ -32,6 +32,7 @@ import { getWorkspaceSettings } from '../store/settings';
 import { getAllPositions } from '../store/stock';
 import { nowIso, openStore, type Store } from '../store/store';
 import { planningCodeVersion } from './codeVersion';
+import { compactHistory } from './compactHistory';
 import { failedItemRecord } from './failedItem';
 import { inputFingerprint } from './fingerprint';
 import { runPool } from './pool';
@@ -221,7 +222,7 @@ async function execute(
       const o = overrides.get(it.sku);
       const input: RunItemInput = {
         settings,
-        history: { weekStart: h.weekStart, qty: h.qty },
+        history: compactHistory(h),
         position: positions.get(it.sku) ?? { onHand: 0, onOrder: 0, backorders: 0, asOf: null },
         overrides: o ? toPlanningOverrides(o) : { forcedModel: null, adjustments: [], safetyStock: null },
         workspace,

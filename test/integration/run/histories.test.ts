@@ -7,6 +7,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, expect, it } from 'vitest';
+import { compactHistory, expandHistory } from '../../../app/run/compactHistory';
 import { insertBatch } from '../../../app/store/batches';
 import { demandWriter, getAllWeeklyHistories, lastDemandWeek } from '../../../app/store/demand';
 import { createPlaceholderItems, upsertItems } from '../../../app/store/items';
@@ -57,5 +58,7 @@ it('matches the store reader on gaps, stockouts, late starts, empty and inactive
   // B: starts at week 3; week 5 stocked out and week 7 empty are both null.
   expect(ours.get(idOf.get('B')!)!.qty).toEqual([30, 40, null, 60, null, 80, 90, 100, 110, 120]);
   expect(ours.get(idOf.get('C')!)).toEqual({ weekStart: [], qty: [] });
+  // What travels to a worker (first week + quantities) spells out to the same history.
+  for (const h of ours.values()) expect(expandHistory(compactHistory(h))).toEqual(h);
   store.close();
 });
