@@ -13,12 +13,12 @@ function clock(seconds: number | null): string {
 }
 
 export function progressText(p: RunProgressEvent): string {
-  const pct = p.total > 0 ? (100 * p.done) / p.total : 100;
+  const pct = p.total > 0 ? (100 * p.done) / p.total : p.phase === 'done' ? 100 : 0;
   return `${p.phase} ${p.done}/${p.total} (${pct.toFixed(0)}%), ${p.itemsPerSecond.toFixed(1)} items/s, left ${clock(p.secondsLeft)}`;
 }
 
 export function progressBar(p: RunProgressEvent, width = 30): string {
-  const frac = p.total > 0 ? Math.min(1, p.done / p.total) : 1;
+  const frac = p.total > 0 ? Math.min(1, p.done / p.total) : p.phase === 'done' ? 1 : 0;
   const full = Math.round(frac * width);
   return `[${'#'.repeat(full)}${'.'.repeat(width - full)}] ${progressText(p)}`;
 }
