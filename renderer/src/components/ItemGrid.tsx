@@ -29,6 +29,8 @@ export function ItemGrid(props: {
   rows: ItemRow[];
   selected: string | null;
   onOpen: (sku: string) => void;
+  /** The keyboard moved to this row: a chance to fetch it before Enter. */
+  onActive?: (sku: string) => void;
   label: string;
 }) {
   const { rows, selected, onOpen } = props;
@@ -50,6 +52,7 @@ export function ItemGrid(props: {
   const move = (to: number) => {
     const next = Math.min(rows.length - 1, Math.max(0, to));
     setActive(next);
+    if (rows[next]) props.onActive?.(rows[next].sku);
     virtualizer.scrollToIndex(next, { align: 'auto' });
   };
 

@@ -79,8 +79,9 @@ export function RunBar() {
             aria-label="Planning progress"
           />
           <span className="run-text" aria-live="polite">
-            {units(progress.done)} of {units(progress.total)} items · {dec1(progress.itemsPerSecond)} items/s
-            · {timeLeft(progress.secondsLeft)}
+            {progress.total === 0
+              ? 'Preparing the run…'
+              : `${units(progress.done)} of ${units(progress.total)} items · ${dec1(progress.itemsPerSecond)} items/s · ${timeLeft(progress.secondsLeft)}`}
           </span>
           <button type="button" onClick={cancel}>
             Cancel run

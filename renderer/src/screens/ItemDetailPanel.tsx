@@ -10,11 +10,12 @@ import { AcfChart, ForecastChart, RootsChart } from '../charts';
 import { FlagList } from '../components/FlagList';
 import { WhenVisible } from '../components/WhenVisible';
 import { dec1, serviceLabel, units } from '../format';
+import { fetchItem } from '../item-cache';
 import { DecisionPanel } from './DecisionPanel';
 
 export function ItemDetailPanel({ sku }: { sku: string }) {
-  const { api, changed } = useApi();
-  const item = useLoad((a) => a.getItem(sku), [sku]);
+  const { api, changed, version } = useApi();
+  const item = useLoad((a) => fetchItem(a, version, sku), [sku]);
   const [message, setMessage] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
 

@@ -1,16 +1,19 @@
 /** The items overview: a filter, the virtualized grid, and the opened item beside it. */
 import { useDeferredValue, useMemo, useState } from 'react';
-import { useLoad } from '../api-context';
+import { useApi, useLoad } from '../api-context';
 import { ItemGrid } from '../components/ItemGrid';
+import { fetchItem } from '../item-cache';
 import { navigate } from '../route';
 import { ItemDetailPanel } from './ItemDetailPanel';
 
 export function ItemsScreen({ sku }: { sku: string | null }) {
-  const items = useLoad((api) => api.listItems(), []);
+  const { api, version } = useApi();
+  const items = useLoad((a) => a.listItems(), []);
   const [filter, setFilter] = useState('');
+  const [showInactive, setShowInactive] = useState(false);
   const deferred = useDeferredValue(filter);
   const rows = useMemo(() => {
-    const all = items.data ?? [];
+    const all = showInactive ? (items.data ?? []) : (items.data ?? []).filter((r) => r.active);
     const f = deferred.trim().toLowerCase();
     if (f === '') return all;
     return all.filter(
@@ -19,7 +22,7 @@ export function ItemsScreen({ sku }: { sku: string | null }) {
         r.description.toLowerCase().includes(f) ||
         (r.supplier ?? '').toLowerCase().includes(f),
     );
-  }, [items.data, deferred]);
+  }, [items.data, deferred, showInactive]);
 
   return (
     <div className="split">
@@ -35,6 +38,14 @@ export function ItemsScreen({ sku }: { sku: string | null }) {
               onChange={(e) => setFilter(e.target.value)}
             />
           </label>
+          <label className="check">
+            <input
+              type="checkbox"
+              checked={showInactive}
+              onChange={(e) => setShowInactive(e.target.checked)}
+            />{' '}
+            inactive too
+          </label>
           <span className="muted" data-testid="item-count">
             {items.data ? `${rows.length} of ${items.data.length}` : items.loading ? 'loading…' : ''}
           </span>
@@ -45,7 +56,16 @@ export function ItemsScreen({ sku }: { sku: string | null }) {
           </p>
         )}
         {items.data && (
-          <ItemGrid rows={rows} selected={sku} onOpen={(s) => navigate('items', s)} label="Items overview" />
+          <ItemGrid
+            rows={rows}
+            selected={sku}
+            onOpen={(s) => {
+              fetchItem(api, version, s);
+              navigate('items', s);
+            }}
+            onActive={(s) => fetchItem(api, version, s)}
+            label="Items overview"
+          />
         )}
       </section>
       <section className="detail-pane" aria-label="Item detail">
