@@ -358,7 +358,8 @@ function reasonOf(
           : `, no annual cycle (screen p = ${screen.pValue.toFixed(3)})`
         : '';
   const sound = c.unsound ? ` (no sound candidate: ${c.unsound})` : '';
-  return `${search} AICc search over ${tried} candidates; d = ${d} (${kp}); chose ARIMA(${c.p},${d},${c.q})${drift}${seas}, AICc ${c.aicc.toFixed(2)}${sound}`;
+  const dWhy = kp ? ` (${kp})` : ' (fixed)';
+  return `${search} AICc search over ${tried} candidates; d = ${d}${dWhy}; chose ARIMA(${c.p},${d},${c.q})${drift}${seas}, AICc ${c.aicc.toFixed(2)}${sound}`;
 }
 
 function forcedChoice(

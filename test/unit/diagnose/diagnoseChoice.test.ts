@@ -11,9 +11,12 @@ describe('diagnoseChoice', () => {
     const n = 156;
     const y = simulateArma({ ar: [0.5], ma: [], sigma2: 1, mean: 100 }, n, 41);
     const w = weeksFrom(n);
-    const { diagnostics, flags } = diagnoseChoice(chooseModel(y, w, { seasonal: false }), w);
+    // d fixed at 0: this series happens to be one of KPSS's 5% false rejections (η = 0.870).
+    const { diagnostics, flags } = diagnoseChoice(chooseModel(y, w, { seasonal: false, d: 0 }), w);
     expect(diagnostics.ljungBox!.pValue).toBeGreaterThan(0.01);
-    expect(diagnostics.roots.minAr).toBeGreaterThan(1.05);
+    // Whatever low order AICc picks here (AR(1) or MA(1)), its roots are well away from the circle.
+    for (const m of [...diagnostics.roots.ar, ...diagnostics.roots.ma]) expect(m).toBeGreaterThan(1.05);
+    expect(diagnostics.roots.ar.length + diagnostics.roots.ma.length).toBeGreaterThan(0);
     expect(diagnostics.recent!.weeks).toBe(26);
     expect(diagnostics.converged).toBe(true);
     expect(flags.map((f) => f.code)).not.toContain('intervals-too-narrow');
