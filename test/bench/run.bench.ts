@@ -109,6 +109,12 @@ try {
         `${((1000 * run.wallSeconds) / n).toFixed(2)} ms/item wall, ${s.msPerItem.toFixed(1)} ms/item inside a worker, ` +
         `${((1000 * run.cpuSeconds) / n).toFixed(1)} ms CPU/item\n`,
     );
+    const again = timed(['run', '--store', db]);
+    const sa = lastJson(again.stdout) as { reused: number; planned: number };
+    process.stdout.write(
+      `N=${n}: second run, inputs unchanged: ${again.wallSeconds.toFixed(1)} s wall, ${(again.maxRssKb / 1024).toFixed(0)} MB, ` +
+        `${sa.reused} reused, ${sa.planned} planned\n`,
+    );
     const plan = timed(['plan', '--store', db, '--out', csv]);
     if (plan.status !== 0) throw new Error(`plan failed:\n${plan.stderr.slice(-2000)}`);
     const rows = readFileSync(csv, 'utf8').trim().split('\r\n').length - 1;
