@@ -123,6 +123,8 @@ try {
       let atLeast = 0;
       let compared = 0;
       let above = 0;
+      let worst = 0;
+      let worstAt = -1;
       ll.forEach((text, i) => {
         const rl = Number(text);
         const ol = records[i].loglik;
@@ -134,11 +136,17 @@ try {
         compared++;
         if (ol !== null && ol >= rl - 1e-6) atLeast++;
         if (ol !== null && ol > rl + 1e-3) above++;
+        const gap = ol === null ? Number.NEGATIVE_INFINITY : ol - rl;
+        if (gap < worst) {
+          worst = gap;
+          worstAt = i;
+        }
       });
       process.stdout.write(
         `  base R arima(method = "ML") ${rMs.toFixed(3)} ms per fit (plain loop, same series); ` +
           `ours / R = ${(ours / rMs).toFixed(3)}; our loglik >= R's - 1e-6 on ${atLeast}/${compared} ` +
-          `(${((100 * atLeast) / compared).toFixed(1)}%), higher by > 1e-3 on ${above}\n`,
+          `(${((100 * atLeast) / compared).toFixed(1)}%), higher by > 1e-3 on ${above}; ` +
+          `largest shortfall ${(-worst).toExponential(2)}${worstAt >= 0 ? ` (${files[worstAt]})` : ''}\n`,
       );
     } else {
       process.stdout.write('  Rscript not installed: no base R figure\n');
