@@ -16,6 +16,12 @@ import type { RowContext } from './context';
 import { parseFlag } from './numbers';
 
 const WEEK_OFFSET = 10000;
+/** Numbers Number() reads as the file means them, without the general parser (a '.' is a
+ * decimal point only in decimal-point files; in decimal-comma files it separates thousands). */
+const PLAIN_DOT = /^-?\d+(\.\d+)?$/;
+const PLAIN_INT = /^-?\d+$/;
+/** Widest span (in weeks, about 40 years) an item's dense slot array may cover. */
+const DENSE_WEEKS = 2100;
 
 export interface SalesWriteStats {
   inserted: number;
@@ -32,6 +38,9 @@ export class SalesCollector {
   readonly skuIndex = new Map<string, number>();
   readonly skus: string[] = [];
   private readonly slotOf = new Map<number, number>();
+  /** Per item: slots by week offset from denseBase (undefined = none yet, null = uses slotOf). */
+  private readonly dense: (Int32Array | null | undefined)[] = [];
+  private readonly denseBase: number[] = [];
   private n = 0;
   private keys = new Float64Array(4096);
   private weekDay = new Int32Array(4096);
@@ -46,7 +55,16 @@ export class SalesCollector {
   constructor(private readonly ctx: RowContext) {
     this.dated = ctx.has('date');
     this.hasStockout = ctx.has('stockout');
+    this.plain = ctx.decimal === '.' ? PLAIN_DOT : PLAIN_INT;
+    this.iSku = ctx.mapping.columnOf.get('sku')!;
+    this.iDate = ctx.mapping.columnOf.get(this.dated ? 'date' : 'week')!;
+    this.iQty = ctx.mapping.columnOf.get('qty')!;
   }
+
+  private readonly plain: RegExp;
+  private readonly iSku: number;
+  private readonly iDate: number;
+  private readonly iQty: number;
 
   private readonly hasStockout: boolean;
 
@@ -65,30 +83,36 @@ export class SalesCollector {
     this.line = g(this.line, (k) => new Int32Array(k));
   }
 
-  /** Date text → [day, week start] for texts already read (most lines repeat a few hundred dates). */
+  /** Date text → week start × 8 + day offset, for texts already read (lines repeat a few hundred dates). */
   private readonly dayOf = new Map<string, number>();
-  private readonly weekOfText = new Map<string, number>();
 
   row(cells: string[], line: number): void {
     const ctx = this.ctx;
     const r = ctx.report;
-    const sku = ctx.cell(cells, 'sku');
+    const sku = cells[this.iSku].trim();
     if (sku === '') r.error(line, ctx.header('sku'), null, 'the SKU is empty');
     const dateField = this.dated ? 'date' : 'week';
-    const dateText = ctx.cell(cells, dateField);
-    let day: number | null | undefined = this.dayOf.get(dateText);
-    let ws = day === undefined ? 0 : this.weekOfText.get(dateText)!;
-    if (day === undefined) {
+    const dateText = cells[this.iDate].trim();
+    // One lookup gives the week start and the day (ws * 8 + day offset in the week).
+    const packed = this.dayOf.get(dateText);
+    let day: number | null | undefined;
+    let ws = 0;
+    if (packed !== undefined) {
+      ws = Math.floor(packed / 8);
+      day = ws + (packed - ws * 8);
+    } else {
       day = ctx.date(cells, dateField, line);
       if (day === null) r.error(line, ctx.header(dateField), null, `the ${dateField} is empty`);
       else if (day !== undefined) {
         ws = weekStartOf(day, ctx.weekStartDay);
-        this.dayOf.set(dateText, day);
-        this.weekOfText.set(dateText, ws);
+        this.dayOf.set(dateText, ws * 8 + (day - ws));
         this.weekSet.add(ws);
       }
     }
-    let qty = ctx.number(cells, 'qty', line);
+    const qtyText = cells[this.iQty].trim();
+    let qty: number | null | undefined = this.plain.test(qtyText)
+      ? Number(qtyText)
+      : ctx.number(cells, 'qty', line);
     if (qty === null && this.dated) {
       r.error(line, ctx.header('qty'), null, 'the quantity is empty');
       qty = undefined;
@@ -134,8 +158,8 @@ export class SalesCollector {
     }
     const wk = Math.floor(ws / 7) + WEEK_OFFSET;
     const key = idx * 65536 + wk;
-    const slot = this.slotOf.get(key);
-    if (slot !== undefined) {
+    const slot = this.slotAt(idx, wk, key);
+    if (slot >= 0) {
       if (!this.dated) {
         r.error(
           line,
@@ -151,13 +175,60 @@ export class SalesCollector {
     }
     if (this.n === this.keys.length) this.grow();
     const s = this.n++;
-    this.slotOf.set(key, s);
+    this.setSlot(idx, wk, key, s);
     this.keys[s] = key;
     this.weekDay[s] = ws;
     this.qty[s] = qty ?? 0;
     this.qtyNull[s] = qty === null ? 1 : 0;
     this.stockout[s] = out ? 1 : 0;
     this.line[s] = line;
+  }
+
+  /**
+   * Slot of an item-week, or -1. Each item keeps a dense array over the weeks it spans (a plain
+   * index, much cheaper than a hash map over a million keys); an item spanning more than
+   * DENSE_WEEKS weeks falls back to the shared map.
+   */
+  private slotAt(idx: number, wk: number, key: number): number {
+    const arr = this.dense[idx];
+    if (arr === undefined) return -1;
+    if (arr === null) return this.slotOf.get(key) ?? -1;
+    const off = wk - this.denseBase[idx];
+    return off >= 0 && off < arr.length ? arr[off] : -1;
+  }
+
+  private setSlot(idx: number, wk: number, key: number, slot: number): void {
+    let arr = this.dense[idx];
+    if (arr === null) {
+      this.slotOf.set(key, slot);
+      return;
+    }
+    if (arr === undefined) {
+      arr = new Int32Array(64).fill(-1);
+      this.dense[idx] = arr;
+      this.denseBase[idx] = wk - 8;
+    }
+    let base = this.denseBase[idx];
+    if (wk < base || wk >= base + arr.length) {
+      const lo = Math.min(base, wk);
+      const hi = Math.max(base + arr.length, wk + 1);
+      if (hi - lo > DENSE_WEEKS) {
+        // Too wide for a dense array: move this item's slots to the map.
+        for (let o = 0; o < arr.length; o++) if (arr[o] >= 0) this.slotOf.set(idx * 65536 + base + o, arr[o]);
+        this.dense[idx] = null;
+        this.slotOf.set(key, slot);
+        return;
+      }
+      const len = Math.min(DENSE_WEEKS, Math.max(arr.length * 2, hi - lo + 16));
+      const newBase = wk < base ? hi - len : lo; // room on the side it grew to
+      const grown = new Int32Array(len).fill(-1);
+      grown.set(arr, base - newBase);
+      arr = grown;
+      base = newBase;
+      this.dense[idx] = arr;
+      this.denseBase[idx] = base;
+    }
+    arr[wk - base] = slot;
   }
 
   /** End-of-file remarks (partial edge weeks of dated lines). */

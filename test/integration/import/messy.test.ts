@@ -42,6 +42,10 @@ describe('messy sales exports', () => {
     expect(rows(s, 'SUG;7')).toEqual([['2026-11-02', 12.25, true]]);
     // The stocked-out week is a missing observation for the engine.
     expect(getWeeklyHistory(s, 'SUG;7')!.qty).toEqual([null, null]);
+    // In a decimal-comma file a point separates thousands.
+    const th = writeCsv(dir, 'th.csv', 'week;sku;qty\n2026-11-16;FLR-101;1.234\n');
+    expect((await imp(s, th, { kind: 'sales' })).status).toBe('imported');
+    expect(rows(s, 'FLR-101')[2]).toEqual(['2026-11-16', 1234, false]);
     s.close();
   });
 
@@ -192,6 +196,34 @@ describe('dates', () => {
 });
 
 describe('duplicates, re-imports, stockouts, negatives, unknown SKUs', () => {
+  it('keeps weeks apart whatever their order and span (decades apart, backwards)', async () => {
+    const s = newStore(dir);
+    const lines = [
+      'week,sku,qty',
+      '2026-11-02,A,1',
+      '1970-01-05,A,2',
+      '2026-10-26,A,3',
+      '2000-01-03,A,4',
+      '2026-11-02,B,5',
+      '2026-09-07,B,6',
+    ];
+    const r = await imp(s, writeCsv(dir, 'span.csv', `${lines.join('\n')}\n`), { kind: 'sales' });
+    expect(r.status).toBe('imported');
+    expect(rows(s, 'A').map((x) => [x[0], x[1]])).toEqual([
+      ['1970-01-05', 2],
+      ['2000-01-03', 4],
+      ['2026-10-26', 3],
+      ['2026-11-02', 1],
+    ]);
+    expect(rows(s, 'B').map((x) => [x[0], x[1]])).toEqual([
+      ['2026-09-07', 6],
+      ['2026-11-02', 5],
+    ]);
+    const dup = writeCsv(dir, 'span2.csv', 'week,sku,qty\n2026-11-02,A,1\n1970-01-05,A,2\n2026-11-02,A,3\n');
+    expect((await imp(s, dup, { kind: 'sales' })).errors[0].message).toContain('(first on line 2)');
+    s.close();
+  });
+
   it('sums dated lines, rejects repeated weekly buckets with both lines named', async () => {
     const s = newStore(dir);
     const dated = writeCsv(
