@@ -120,7 +120,10 @@ export function makeFlag(code: FlagCode, facts: Record<string, number | string> 
       return {
         code,
         severity: 'warning',
-        reason: `Over the last ${f.weeks} weeks the one-step errors were ${num(Number(f.ratio), 2)} times as large as the model expects, so its intervals are too narrow.`,
+        reason:
+          f.outside !== undefined
+            ? `In a backtest over ${f.weeks} weeks, ${f.outside} of ${f.total} actuals fell outside the 95% intervals (about ${num(0.05 * Number(f.total), 2)} expected), so the intervals are too narrow.`
+            : `Over the last ${f.weeks} weeks the one-step errors were ${num(Number(f.ratio), 2)} times as large as the model expects, so its intervals are too narrow.`,
         action: 'Raise the safety stock or review recent weeks for a change in demand.',
       };
     case 'loses-to-naive':

@@ -1,5 +1,6 @@
 import { forecastIntervals } from '../arma/forecast';
 import { backtestChoice } from '../backtest/backtestChoice';
+import { backtestFlags } from '../backtest/backtestFlags';
 import { diagnoseChoice } from '../diagnose/diagnoseChoice';
 import { formatIsoDate } from '../series/calendar';
 import { chooseModel } from './chooseModel';
@@ -112,7 +113,15 @@ export function choiceRecord(
     diagnostics: finite(diagnostics),
   };
   if (options.backtest) {
-    record.backtest = finite(backtestChoice(values, weekStart, choice, { lead: options.backtestLead ?? 4 }));
+    const b = backtestChoice(values, weekStart, choice, { lead: options.backtestLead ?? 4 });
+    record.backtest = finite(b);
+    // The backtest's verdicts replace the cheap checks of the same name.
+    const fromBacktest = backtestFlags(b);
+    const codes = new Set(fromBacktest.map((f) => f.code));
+    record.flags = [
+      ...(record.flags as typeof fromBacktest).filter((f) => !codes.has(f.code)),
+      ...fromBacktest,
+    ];
   }
   return record;
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { simulateArma } from '../../../core/arma/simulate';
 import { backtestChoice } from '../../../core/backtest/backtestChoice';
+import { backtestFlags, binomialUpperTail } from '../../../core/backtest/backtestFlags';
 import { mase, naiveScale } from '../../../core/backtest/metrics';
 import { chooseModel } from '../../../core/select/chooseModel';
 import { weeksFrom } from '../select/seriesGenerators';
@@ -46,5 +47,41 @@ describe('rolling-origin backtest', () => {
     const b = backtestChoice(y, w, c, { lead: 2 });
     expect(b.origins).toBe(8);
     expect(Number.isFinite(b.mase ?? Number.NaN)).toBe(true);
+  });
+});
+
+describe('flags from a backtest', () => {
+  it('binomial upper tail matches the definition', () => {
+    // P(X ≥ 1) for Binomial(10, 0.05) = 1 − 0.95^10 (definition).
+    expect(binomialUpperTail(1, 10, 0.05)).toBeCloseTo(1 - 0.95 ** 10, 12);
+    expect(binomialUpperTail(0, 10, 0.05)).toBe(1);
+    // P(X ≥ 2) for Binomial(3, 0.5) = (3 + 1)/8.
+    expect(binomialUpperTail(2, 3, 0.5)).toBeCloseTo(0.5, 12);
+  });
+  it('flags intervals that miss far more often than 5% and a model worse than naive', () => {
+    const horizons = [1, 2].map((step) => ({
+      step,
+      count: 25,
+      mase: 1.5,
+      bias: 0,
+      coverage80: 0.5,
+      coverage95: 0.76,
+      naiveMase: 1.0,
+    }));
+    const flags = backtestFlags({
+      origins: 26,
+      lead: 2,
+      scale: 'naive',
+      horizons,
+      mase: 1.5,
+      naiveMase: 1.0,
+      bias: 0,
+      coverage80: 0.5,
+      coverage95: 0.76,
+      losesToNaive: true,
+    });
+    const codes = flags.map((f) => f.code);
+    expect(codes).toEqual(['intervals-too-narrow', 'loses-to-naive']);
+    expect(flags[0].reason).toContain('12 of 50 actuals fell outside the 95% intervals');
   });
 });
