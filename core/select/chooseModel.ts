@@ -16,8 +16,8 @@ import { SCREEN_LEVEL, seasonalScreen } from './seasonalScreen';
  *    (0,1), (1,1) and move one step in p or in q while the best model changes (with d = 1 the
  *    starts are fitted with and without drift, and the winner's drift toggled at the end), the idea published by Hyndman & Khandakar (2008) — or the full grid.
  * 4. With at least 104 weeks of history and a significant LM screen for an annual cycle, Fourier
- *    terms K = 1…4 (period 365.25/7) are fitted jointly with the ARMA errors and K chosen by AICc;
- *    the stepwise walk then continues with that K.
+ *    terms K = 1…4 (period 365.25/7) are fitted jointly with the ARMA errors (stepwise: K = 1, 2, …
+ *    while AICc falls) and K chosen by AICc; the stepwise walk then continues with that K.
  * Rules: ΔAICc < 0.1 goes to the model with fewer parameters; a candidate that did not converge,
  * fell back, or has an AR or MA root of modulus below 1.01 is never chosen over a sound one, and
  * its record says why it was passed over. Every candidate is recorded with its AICc.
@@ -246,7 +246,15 @@ export function chooseModel(
     screen = seasonalScreen(res, offset >= 0 ? times.subarray(offset) : times);
     if (screen.pValue < SCREEN_LEVEL) {
       const c = chosen;
-      for (let k = 1; k <= maxK; k++) fitOne(c.p, c.q, k, c.mean);
+      // K = 1, 2, … while AICc keeps falling (it rises once the harmonics only fit noise); the
+      // grid search tries every K.
+      let bestK = c.aicc;
+      for (let k = 1; k <= maxK; k++) {
+        const e = fitOne(c.p, c.q, k, c.mean);
+        if (!e) break;
+        if (search !== 'grid' && k >= 2 && !(e.aicc < bestK)) break;
+        if (e.unsound === null && e.aicc < bestK) bestK = e.aicc;
+      }
       const seasonalBest = pick(order);
       if (seasonalBest && seasonalBest.k > 0) walk(seasonalBest.k, seasonalBest);
       chosen = pick(order);
