@@ -4,8 +4,8 @@
  * Monahan 1984). ARMA likelihoods are often multimodal (an AR-led and an MA-led optimum, or an
  * optimum with a near-common AR/MA factor in a far corner of the π-cube), so BFGS runs from
  * several starts and the best optimum is kept:
- *   - Hannan–Rissanen (1982) two-stage regression; zero; the Yule–Walker AR(p) with θ = 0; and for
- *     p + q > 2 also an AR-led corner (π_1 = 0.9) and the Hannan–Rissanen MA(q) with φ = 0;
+ *   - Hannan–Rissanen (1982) two-stage regression; zero; the Yule–Walker AR(p) with θ = 0; the
+ *     Hannan–Rissanen MA(q) with φ = 0; and for p + q > 2 an AR-led corner (π_1 = 0.9);
  *   - with more than three starts, every start gets five BFGS iterations and the best three
  *     distinct candidates run to convergence (for p + q ≤ 4; larger orders run every start);
  *   - for p + q ≥ 5, the optimum of ARMA(p−1, q−1) multiplied on both sides by a common factor
@@ -90,7 +90,7 @@ function basicStarts(u: Float64Array, p: number, q: number): Float64Array[] {
     near[0] = 0.9;
     if (p + q > 2) push(near, zeroMa);
   }
-  if (q > 0 && p + q > 2) {
+  if (q > 0) {
     const hm = hannanRissanen(u, 0, q);
     if (hm) push(zeroAr, hm.ma);
   }
