@@ -38,7 +38,13 @@ export default async function plan(args: string[]): Promise<number> {
     process.stderr.write(USAGE);
     return parsed ? 2 : 0;
   }
-  const store = openStore(parsed.store, { readonly: true });
+  let store: ReturnType<typeof openStore>;
+  try {
+    store = openStore(parsed.store, { readonly: true });
+  } catch (err) {
+    process.stderr.write(`plan: ${err instanceof Error ? err.message : String(err)}\n`);
+    return 1;
+  }
   try {
     const run = getLatestRun(store);
     if (!run) {

@@ -100,5 +100,8 @@ describe('plan: the order-list export', () => {
     expect(none.stderr).toContain('has no complete planning run yet');
     expect(() => readFileSync(join(dir, 'none.csv'))).toThrow();
     expect(cli('plan', '--store', path).stderr).toContain('--out FILE.csv is required');
+    const missing = cli('plan', '--store', join(dir, 'nope.sqlite'), '--out', join(dir, 'none.csv'));
+    expect(missing.status).toBe(1);
+    expect(missing.stderr).toMatch(/^plan: .*nope\.sqlite: no such store/);
   });
 });
