@@ -23,10 +23,15 @@ function echo(mapping: Record<string, string | null>): Record<string, string> {
   return out;
 }
 
+/** The import speaks to the command line ("--map COLUMN=qty"); on the screen the planner picks the field above. */
+function forScreen(message: string): string {
+  return message.replace(/name one with --map \S+=(\w+)/g, 'choose the column for $1 in the mapping above');
+}
+
 function problems(
   list: { line: number | null; column: string | null; value: string | null; message: string }[],
 ): ImportProblem[] {
-  return list.map((p) => ({ line: p.line, column: p.column, value: p.value, message: p.message }));
+  return list.map((p) => ({ line: p.line, column: p.column, value: p.value, message: forScreen(p.message) }));
 }
 
 /** "…and N more" is how the import reports errors beyond its cap; recover the total from it. */

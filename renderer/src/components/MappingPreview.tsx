@@ -91,10 +91,7 @@ export function MappingPreview(props: {
           </h3>
           <ul className="plain" aria-label="Problems">
             {preview.problems.map((p) => (
-              <li key={`${p.line}-${p.column}-${p.message}`}>
-                {p.line !== null && <span className="mono">line {p.line}: </span>}
-                {p.message}
-              </li>
+              <li key={`${p.line}-${p.column}-${p.message}`}>{p.message}</li>
             ))}
           </ul>
           {preview.totalProblems > preview.problems.length && (

@@ -48,7 +48,7 @@ describe('MappingPreview', () => {
     const alert = screen.getByRole('alert');
     expect(alert.textContent).toContain('1 problem');
     expect(alert.textContent).toContain('nothing will be imported');
-    expect(alert.textContent).toContain('line 3:');
+    expect(alert.textContent).toContain("w.csv line 3, column 'Units'");
     expect(alert.textContent).toContain("'abc' is not a number");
   });
 
