@@ -143,7 +143,7 @@ async function analyse(path: string, options: ImportOptions, ws: WorkspaceSettin
   a.decimal = chooseDecimal(sniff.delimiter, sniff.sample, options.decimal);
   const weekStartDay = options.weekStartDay ?? ws.weekStartDay;
 
-  const pass = async (order: DateOrder | null): Promise<'done' | 'need-order'> => {
+  const pass = async (order: DateOrder | null, trim = false): Promise<'done' | 'need-order'> => {
     const report = new Report(fileName);
     a.report = report;
     a.firstRows = [];
@@ -198,9 +198,12 @@ async function analyse(path: string, options: ImportOptions, ws: WorkspaceSettin
           },
         },
         sniff.sepLine,
+        trim,
       );
     } catch (err) {
       if (err instanceof NeedDateOrder) return 'need-order';
+      // Spaces around quoted fields break the untrimmed parse: read again, trimming.
+      if (err instanceof FileProblem && err.syntax && !trim) return pass(order, true);
       if (err instanceof FileProblem) {
         if (err.message !== 'mapping') report.error(err.line, null, null, err.message);
         return 'done';
@@ -231,6 +234,7 @@ async function analyse(path: string, options: ImportOptions, ws: WorkspaceSettin
           },
         },
         sniff.sepLine,
+        true,
       );
     } catch (err) {
       if (!(err instanceof FileProblem)) throw err;

@@ -49,6 +49,14 @@ describe('messy sales exports', () => {
     s.close();
   });
 
+  it('reads quoted fields with spaces around the quotes', async () => {
+    const s = newStore(dir);
+    const f = writeCsv(dir, 'spq.csv', 'week;sku;qty\n2026-11-02; "B;2" ; "3,5" \n');
+    expect((await imp(s, f, { kind: 'sales' })).status).toBe('imported');
+    expect(rows(s, 'B;2')).toEqual([['2026-11-02', 3.5, false]]);
+    s.close();
+  });
+
   it('reads tab-separated files and comma files with quoted thousands', async () => {
     const s = newStore(dir);
     const tab = writeCsv(dir, 'tab.tsv', 'wk\tsku\tunits\n2026-11-02\tA\t3\n2026-11-02\tB\t4.5\n');
