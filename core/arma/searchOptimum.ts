@@ -6,7 +6,7 @@
  * several starts and the best optimum is kept:
  *   - Hannan–Rissanen (1982) two-stage regression; zero; the Yule–Walker AR(p) with θ = 0; the
  *     Hannan–Rissanen MA(q) with φ = 0; and for p + q > 2 an AR-led corner (π_1 = 0.9);
- *   - with more than three starts, every start gets five BFGS iterations and the best three
+ *   - with more than five starts, every start gets five BFGS iterations and the best five
  *     distinct candidates run to convergence (for p + q ≤ 4; larger orders run every start);
  *   - for p + q ≥ 5, the optimum of ARMA(p−1, q−1) multiplied on both sides by a common factor
  *     (1 − cz) (which leaves the likelihood unchanged, so the search starts at the lower-order
@@ -21,7 +21,9 @@ import { coefficientsToUnconstrained, unconstrainedToCoefficients } from './part
 const ABANDON_RADIUS = 0.05;
 const GRAD_STEP = 1e-6;
 const STAGE1_ITERATIONS = 5;
-const STAGE2_KEEP = 3;
+// Five: with the basic starts (at most five) every start runs to convergence; culling to three
+// after stage 1 missed the better optimum on 2 of 1,000 simulated ARMA(2,2) series.
+const STAGE2_KEEP = 5;
 const GRAD_TOL = 1e-6;
 const NESTED_FROM = 5;
 const SCREEN_FROM = 5;
