@@ -131,9 +131,9 @@ describe('a killed import', () => {
     child.stdout.on('data', (d) => {
       stdout += d;
     });
-    // The CLI says on stderr when its write transaction starts; kill it 100 ms into the write.
+    // The CLI says on stderr when its write transaction starts; kill it 30 ms into the write.
     child.stderr.on('data', (d: Buffer) => {
-      if (d.toString().includes('writing to the store')) setTimeout(() => child.kill('SIGKILL'), 100);
+      if (d.toString().includes('writing to the store')) setTimeout(() => child.kill('SIGKILL'), 30);
     });
     const signal = await new Promise<NodeJS.Signals | null>((r) => child.on('exit', (_code, sig) => r(sig)));
     expect(signal).toBe('SIGKILL');
