@@ -15,6 +15,8 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { listRuns } from '../../app/store/runs';
+import { openStore } from '../../app/store/store';
 import { writeBenchSales } from './benchSales';
 
 const WEEKS = 156;
@@ -52,6 +54,17 @@ function timed(args: string[]): Timed {
     stdout: r.stdout,
     stderr: r.stderr,
   };
+}
+
+/** Why a rerun planned again: the planning code's version is part of every item's fingerprint. */
+function codeVersionNote(db: string): string {
+  const store = openStore(db, { readonly: true });
+  try {
+    const [b, a] = listRuns(store, 2).map((r) => (r.settings as { codeVersion?: string }).codeVersion);
+    return a !== b ? `the planning code changed between the runs: ${a} → ${b}` : 'same code version';
+  } finally {
+    store.close();
+  }
 }
 
 function lastJson(text: string): Record<string, unknown> {
@@ -113,7 +126,7 @@ try {
     const sa = lastJson(again.stdout) as { reused: number; planned: number };
     process.stdout.write(
       `N=${n}: second run, inputs unchanged: ${again.wallSeconds.toFixed(1)} s wall, ${(again.maxRssKb / 1024).toFixed(0)} MB, ` +
-        `${sa.reused} reused, ${sa.planned} planned\n`,
+        `${sa.reused} reused, ${sa.planned} planned${sa.planned > 0 ? ` (${codeVersionNote(db)})` : ''}\n`,
     );
     const plan = timed(['plan', '--store', db, '--out', csv]);
     if (plan.status !== 0) throw new Error(`plan failed:\n${plan.stderr.slice(-2000)}`);
