@@ -14,7 +14,7 @@ import { SCREEN_LEVEL, seasonalScreen } from './seasonalScreen';
  * 2. d ≤ 2 by repeated KPSS tests at 5% (Kwiatkowski et al. 1992); with d = 1 a drift is a candidate.
  * 3. p, q ≤ 5 and p + q ≤ 5 by AICc (Hurvich & Tsai 1989), either a stepwise walk — start from (0,0), (1,0),
  *    (0,1), (1,1) and move one step in p or in q while the best model changes (with d = 1 the
- *    starts are fitted with and without drift, and the winner's drift toggled at the end), the idea published by Hyndman & Khandakar (2008) — or the full grid.
+ *    walk starts with a drift and toggles it wherever it would stop), the idea published by Hyndman & Khandakar (2008) — or the full grid.
  * 4. With at least 104 weeks of history and a significant LM screen for an annual cycle, Fourier
  *    terms K = 1…4 (period 365.25/7) are fitted jointly with the ARMA errors (stepwise: K = 1, 2, …
  *    while AICc falls) and K chosen by AICc; the stepwise walk then continues with that K.
@@ -213,9 +213,9 @@ export function chooseModel(
       return;
     }
     if (!centre) {
-      // With d = 1 the drift is decided on the starting orders (fitted with and without), kept
-      // during the walk, and toggled once more on the winner at the end.
-      for (const mean of meanChoices) for (const [p, q] of START_ORDERS) fitOne(p, q, k, mean);
+      // With d = 1 the walk starts with a drift; wherever it settles the drift is toggled, and the
+      // walk continues from the better of the two (so both are considered at every resting point).
+      for (const [p, q] of START_ORDERS) fitOne(p, q, k, meanChoices[0]);
     }
     let current = pick(order.filter((e) => e.k === k)) ?? centre;
     let budget = MAX_STEPWISE_FITS;
