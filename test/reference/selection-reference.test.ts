@@ -44,6 +44,9 @@ describe('order selection against base R’s exhaustive AICc grid', () => {
     // The fixture's own summary: base R right on 102 of 200 (51%).
     if (stride === 1) expect(r).toBe(fixture.summary.rCorrect);
     console.log(`selection reference: ours ${ours}/${count}, base R grid ${r}/${count}`);
-    expect(ours).toBeGreaterThanOrEqual(r);
+    // On all 200 (SELECTION_FULL=1, and the benchmark) the issue's rule holds as stated: ours ≥ R.
+    // On the 67-series subset the two counts are close (37 vs 36 when written), so a margin of two
+    // series keeps the fast test from flipping on a one-series change in the engine's optimum.
+    expect(ours).toBeGreaterThanOrEqual(stride === 1 ? r : r - 2);
   });
 });
