@@ -4,7 +4,7 @@
  * threads (one per core); the main thread only reads, coordinates and writes.
  *
  * - Reuse: an item whose input fingerprint (./fingerprint) equals the one in the latest complete
- *   run is carried over unless `force`.
+ *   run is carried over unless `force` (or unless it failed there: then it is tried again).
  * - `items`: only the listed SKUs are planned; every other active item is carried over from the
  *   latest run as it stands (so the new run is still complete).
  * - Error tracking: the forecasts earlier runs made for weeks that have since been observed go to
@@ -192,7 +192,7 @@ async function execute(
     const overrides = getAllOverrides(store);
     const previous = getLatestRun(store);
     summary.previousRunId = previous?.id ?? null;
-    const prevPrints = previous ? getRunFingerprints(store, previous.id) : new Map<number, string>();
+    const prevPrints = previous ? getRunFingerprints(store, previous.id) : new Map();
     const past = through ? getPastForecasts(store, through) : new Map();
 
     const abc = abcClasses(
@@ -243,7 +243,9 @@ async function execute(
         if (prev !== undefined && previous) reused.push({ itemId: id, fromRunId: previous.id });
         continue;
       }
-      if (!options.force && prev === fingerprint && previous) {
+      // An item that failed last time is tried again even with the same inputs (the failure may
+      // have been the machine's: a hang, a worker out of memory).
+      if (!options.force && prev?.fingerprint === fingerprint && prev.status !== 'failed' && previous) {
         reused.push({ itemId: id, fromRunId: previous.id });
         continue;
       }

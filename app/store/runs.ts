@@ -121,13 +121,16 @@ export function listRuns(store: Store, limit = 50): RunRow[] {
   ).map(runFromRow);
 }
 
-/** item id → input fingerprint in a run. */
-export function getRunFingerprints(store: Store, runId: number): Map<number, string> {
-  const out = new Map<number, string>();
+/** item id → input fingerprint and item status in a run. */
+export function getRunFingerprints(
+  store: Store,
+  runId: number,
+): Map<number, { fingerprint: string; status: ItemRunResult['status'] }> {
+  const out = new Map<number, { fingerprint: string; status: ItemRunResult['status'] }>();
   for (const r of store.db
-    .prepare('SELECT item_id, fingerprint FROM run_items WHERE run_id = ?')
-    .iterate(runId) as Iterable<{ item_id: number; fingerprint: string }>) {
-    out.set(r.item_id, r.fingerprint);
+    .prepare('SELECT item_id, fingerprint, status FROM run_items WHERE run_id = ?')
+    .iterate(runId) as Iterable<{ item_id: number; fingerprint: string; status: ItemRunResult['status'] }>) {
+    out.set(r.item_id, { fingerprint: r.fingerprint, status: r.status });
   }
   return out;
 }

@@ -136,6 +136,9 @@ describe('planning run (stand-in per-item function, tests only)', () => {
     expect(orders.groups).toHaveLength(1);
     expect(orders.groups[0].supplier).toBeNull();
     expect(orders.groups[0].lines).toHaveLength(23);
+    // Same inputs next time: the good items are reused, the failed ones tried again.
+    const again = await run(store);
+    expect([again.planned, again.reused, again.failed]).toEqual([3, 20, 3]);
     store.close();
   });
 
