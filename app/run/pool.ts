@@ -16,7 +16,7 @@
 import { availableParallelism } from 'node:os';
 import type { Worker } from 'node:worker_threads';
 import type { FromWorker, PoolWorkerData, ToWorker } from './poolProtocol';
-import { startTsWorker } from './tsWorker';
+import { siblingModule, startTsWorker } from './tsWorker';
 
 export type PoolOutcome<TOut> =
   | { index: number; ok: true; value: TOut; ms: number }
@@ -70,7 +70,7 @@ export function runPool<TIn, TOut>(options: PoolOptions<TIn, TOut>): PoolHandle 
   const itemTimeoutMs = options.itemTimeoutMs ?? 120_000;
   const maxRestarts = options.maxWorkerRestarts ?? 8 + Math.floor(count / 100);
   const data: PoolWorkerData = { taskModule: options.taskModule.href, taskExport: options.taskExport };
-  const workerEntry = new URL('./poolWorker.ts', import.meta.url);
+  const workerEntry = siblingModule('poolWorker', import.meta.url);
 
   /** Indices waiting to be sent: retried ones first (a stack at the front), then the rest in order. */
   const retry: number[] = [];

@@ -38,6 +38,7 @@ import { inputFingerprint } from './fingerprint';
 import { runPool } from './pool';
 import { ProgressTracker, type RunProgressEvent } from './progress';
 import type { RunItemInput } from './runInput';
+import { siblingModule } from './tsWorker';
 
 export interface RunOptions {
   /** Plan only these SKUs (the rest are carried over). */
@@ -263,7 +264,7 @@ async function execute(
     emit('planning');
     if (toPlan.length > 0) {
       const pool = runPool<RunItemInput, ItemRunRecord>({
-        taskModule: options.taskModule ?? new URL('./planTask.ts', import.meta.url),
+        taskModule: options.taskModule ?? siblingModule('planTask', import.meta.url),
         taskExport: options.taskExport ?? 'planTask',
         count: toPlan.length,
         input: (i) => {

@@ -30,3 +30,12 @@ export function startTsWorker(entry: URL, options: Omit<WorkerOptions, 'eval'> =
   ].join('\n');
   return new Worker(source, { ...options, eval: true });
 }
+
+/**
+ * URL of a module beside `here` with the same extension as `here`: `.ts` from source, `.js` (or
+ * `.mjs`) in a build that keeps the run's modules as separate files.
+ */
+export function siblingModule(name: string, here: string): URL {
+  const ext = /\.(c|m)?(t|j)s$/.exec(new URL(here).pathname)?.[0] ?? '.ts';
+  return new URL(`./${name}${ext}`, here);
+}
