@@ -274,9 +274,9 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const arHat = search.ar;
   const maHat = search.ma;
   // The reported likelihood from the full filter (no steady-state shortcut): exact.
-  lik.forcedSwitch = n + 1;
+  lik.useFullFilter();
   const value = lik.profile(arHat, maHat);
-  lik.forcedSwitch = -1;
+  lik.releaseSwitches();
   const betaU = Array.from(lik.beta);
   const sigma2U = lik.sigma2;
   const loglik = lik.loglikFromObjective(value) - nobs * Math.log(scale);
@@ -398,7 +398,7 @@ function naturalStandardErrors(
   const f0 = f();
   if (!Number.isFinite(f0)) return { values: nan, ok: false };
   // Every stencil pass switches to the steady state where the base pass did (a smooth function).
-  lik.forcedSwitch = lik.lastSwitch;
+  lik.freezeSwitches();
   // β block from the base pass.
   if (k > 0) {
     let ssr = lik.syy;
@@ -449,7 +449,7 @@ function naturalStandardErrors(
       H[j * m + i] = v;
     }
   }
-  lik.forcedSwitch = -1;
+  lik.releaseSwitches();
   for (let i = 0; i < m * m; i++) {
     if (!Number.isFinite(H[i])) return { values: nan, ok: false };
     H[i] *= nobs;

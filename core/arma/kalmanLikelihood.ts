@@ -110,12 +110,32 @@ export class ArmaLikelihood {
   }
 
   /**
-   * Step at which the last pass switched to the steady state (−1: never). Setting forcedSwitch to
-   * a step makes the next passes switch exactly there, so that the finite-difference stencil of a
-   * gradient sees one smooth function rather than one with a jump where the switch step moves.
+   * Steps at which the last pass entered the steady state (once, or again after each missing
+   * week). freezeSwitches() makes the following passes switch exactly there, so that the
+   * finite-difference stencil of a gradient or Hessian sees one smooth function rather than one
+   * with small jumps where a switch step moves; useFullFilter() never switches (exact likelihood).
    */
-  lastSwitch = -1;
-  forcedSwitch = -1;
+  private switchLog: Int32Array = new Int32Array(0);
+  private switchCount = 0;
+  private frozenLog: Int32Array = new Int32Array(0);
+  private frozenCount = 0;
+  /** 0: switch on the trace test; 1: replay the frozen steps; 2: never switch. */
+  private switchMode = 0;
+
+  freezeSwitches(): void {
+    if (this.frozenLog.length < this.switchCount) this.frozenLog = new Int32Array(this.switchLog.length);
+    this.frozenLog.set(this.switchLog.subarray(0, this.switchCount));
+    this.frozenCount = this.switchCount;
+    this.switchMode = 1;
+  }
+
+  releaseSwitches(): void {
+    this.switchMode = 0;
+  }
+
+  useFullFilter(): void {
+    this.switchMode = 2;
+  }
 
   /**
    * One filter pass accumulating the GLS sums. Returns false if a prediction variance is not
@@ -135,8 +155,13 @@ export class ArmaLikelihood {
     let sumLogF = 0;
     let nobs = 0;
     const w = cols[0];
-    const forced = this.forcedSwitch;
-    this.lastSwitch = -1;
+    const mode = this.switchMode;
+    if (this.switchLog.length < n + 1) this.switchLog = new Int32Array(n + 1);
+    const log = this.switchLog;
+    const frozen = this.frozenLog;
+    const frozenCount = this.frozenCount;
+    let switches = 0;
+    let fi = 0;
     let t = 0;
     while (t < n) {
       const observed = !Number.isNaN(w[t]);
@@ -178,9 +203,15 @@ export class ArmaLikelihood {
           a[base + r - 1] = phi[r - 1] * a0;
         }
         t++;
-        if (forced >= 0 ? t === forced : trace < STEADY_TOL) {
+        let enter = false;
+        if (mode === 0) enter = trace < STEADY_TOL;
+        else if (mode === 1) {
+          while (fi < frozenCount && frozen[fi] < t) fi++;
+          enter = fi < frozenCount && frozen[fi] === t;
+        }
+        if (enter) {
           // P_{t|t} ≈ 0 from here: gain R, F = 1, until the next missing week.
-          if (this.lastSwitch < 0) this.lastSwitch = t;
+          log[switches++] = t;
           const t1 = nc === 2 ? this.steadyMean(t) : this.steadyGeneric(t);
           nobs += t1 - t;
           t = t1;
@@ -204,6 +235,7 @@ export class ArmaLikelihood {
     }
     this.sumLogF = sumLogF;
     this.nobs = nobs;
+    this.switchCount = switches;
     return true;
   }
 

@@ -173,7 +173,7 @@ function search(
   const xh = new Float64Array(m);
   // Forward differences, each stencil point filtered with the base point's switch step.
   const gradient = (x: Float64Array, fx: number, out: Float64Array): void => {
-    lik.forcedSwitch = lik.lastSwitch;
+    lik.freezeSwitches();
     for (let i = 0; i < m; i++) xh[i] = x[i];
     for (let i = 0; i < m; i++) {
       xh[i] = x[i] + GRAD_STEP;
@@ -186,7 +186,7 @@ function search(
       }
       xh[i] = x[i];
     }
-    lik.forcedSwitch = -1;
+    lik.releaseSwitches();
   };
   // Converged when the gradient in the partial autocorrelations (not in u = atanh π, whose
   // gradient vanishes near |π| = 1) is small: optima on the edge of the region are then reached.
