@@ -274,7 +274,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const arHat = search.ar;
   const maHat = search.ma;
   // The reported likelihood from the full filter (no steady-state shortcut): exact.
-  lik.useFullFilter();
+  lik.disableSteadyState();
   const value = lik.profile(arHat, maHat);
   lik.releaseSwitches();
   const betaU = Array.from(lik.beta);

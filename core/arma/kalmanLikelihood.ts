@@ -113,7 +113,7 @@ export class ArmaLikelihood {
    * Steps at which the last pass entered the steady state (once, or again after each missing
    * week). freezeSwitches() makes the following passes switch exactly there, so that the
    * finite-difference stencil of a gradient or Hessian sees one smooth function rather than one
-   * with small jumps where a switch step moves; useFullFilter() never switches (exact likelihood).
+   * with small jumps where a switch step moves; disableSteadyState() never switches (exact likelihood).
    */
   private switchLog: Int32Array = new Int32Array(0);
   private switchCount = 0;
@@ -133,7 +133,7 @@ export class ArmaLikelihood {
     this.switchMode = 0;
   }
 
-  useFullFilter(): void {
+  disableSteadyState(): void {
     this.switchMode = 2;
   }
 

@@ -77,7 +77,7 @@ describe('ARMA(1,0) and ARMA(0,1) reduce to AR(1) and MA(1)', () => {
   const y = simulateArma({ ar: [0.6], ma: [], sigma2: 2 }, 80, 5);
   it('ARMA(1,0) likelihood = the AR(1) Gaussian likelihood, γ_k = σ² φ^|k| / (1 − φ²) (definition)', () => {
     const lik = new ArmaLikelihood(y, [], 1, 0);
-    lik.useFullFilter(); // no steady-state shortcut
+    lik.disableSteadyState(); // no steady-state shortcut
     const phi = 0.55;
     const ours = lik.loglikFromObjective(lik.profile([phi], []));
     const dense = denseConcentratedLoglik(y, (i, j) => phi ** Math.abs(i - j) / (1 - phi * phi));
@@ -85,7 +85,7 @@ describe('ARMA(1,0) and ARMA(0,1) reduce to AR(1) and MA(1)', () => {
   });
   it('ARMA(0,1) likelihood = the MA(1) Gaussian likelihood, γ_0 = σ²(1 + θ²), γ_1 = −σ²θ (definition)', () => {
     const lik = new ArmaLikelihood(y, [], 0, 1);
-    lik.useFullFilter();
+    lik.disableSteadyState();
     const theta = -0.4;
     const ours = lik.loglikFromObjective(lik.profile([], [theta]));
     const dense = denseConcentratedLoglik(y, (i, j) =>
@@ -95,7 +95,7 @@ describe('ARMA(1,0) and ARMA(0,1) reduce to AR(1) and MA(1)', () => {
   });
   it('ARMA(2,1) likelihood = the dense Gaussian likelihood with the model ACF (definition)', () => {
     const lik = new ArmaLikelihood(y, [], 2, 1);
-    lik.useFullFilter();
+    lik.disableSteadyState();
     const ar = [0.5, -0.2];
     const ma = [0.3];
     const rho = theoreticalAcf(ar, ma, y.length);

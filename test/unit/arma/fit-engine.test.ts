@@ -109,7 +109,7 @@ describe('the Kalman filter', () => {
     // Switching once the filtered covariance trace is below 1e-8 (kalmanLikelihood.ts); the
     // reported log-likelihood itself always comes from the full filter.
     expect(Math.abs(fast - exact)).toBeLessThan(1e-7);
-    lik.useFullFilter();
+    lik.disableSteadyState();
     expect(Math.abs(lik.loglikFromObjective(lik.profile(ar, ma)) - exact)).toBeLessThan(1e-10);
   });
 });
