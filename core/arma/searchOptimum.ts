@@ -225,30 +225,35 @@ function search(
 
   // Stage 1: a few BFGS iterations from every start. Stage 2: the best STAGE2_KEEP distinct
   // candidates run to convergence; a candidate entering a better one's basin is stopped.
-  const run = (
-    start: Float64Array,
-    iterations: number,
-    incumbent: { x: Float64Array; value: number } | null,
-  ) =>
-    bfgsMinimize(objective, start, {
+  // Optima already found (the best and the worse ones): a later start that enters one of their
+  // basins (within ABANDON_RADIUS, not better than that optimum) cannot beat it and is stopped.
+  const found: { x: Float64Array; value: number }[] = [];
+  const run = (start: Float64Array, iterations: number, record: boolean) => {
+    const res = bfgsMinimize(objective, start, {
       maxIterations: iterations,
       gradient,
       isConverged,
       valueTolerance: 1e-10,
-      abandon: incumbent
+      abandon: found.length
         ? (x, v) => {
-            if (v < incumbent.value) return false;
-            let dist = 0;
-            for (let i = 0; i < x.length; i++) dist = Math.max(dist, Math.abs(x[i] - incumbent.x[i]));
-            return dist < ABANDON_RADIUS;
+            for (const f of found) {
+              if (v < f.value) continue;
+              let dist = 0;
+              for (let i = 0; i < x.length; i++) dist = Math.max(dist, Math.abs(x[i] - f.x[i]));
+              if (dist < ABANDON_RADIUS) return true;
+            }
+            return false;
           }
         : undefined,
     });
+    if (record && res.converged && Number.isFinite(res.value)) found.push({ x: res.x, value: res.value });
+    return res;
+  };
   // Larger orders (p + q ≥ NESTED_FROM) are rare and hard: every start runs to convergence there.
   const keep = m >= NESTED_FROM ? starts.length : STAGE2_KEEP;
   const stage1 = starts
     .map((x) =>
-      starts.length > keep ? run(x, STAGE1_ITERATIONS, null) : { x, value: objective(x), converged: false },
+      starts.length > keep ? run(x, STAGE1_ITERATIONS, false) : { x, value: objective(x), converged: false },
     )
     .filter((r) => Number.isFinite(r.value))
     .sort((a, b) => a.value - b.value);
@@ -271,7 +276,7 @@ function search(
   for (const c of candidates) {
     const res: { x: Float64Array; value: number; converged: boolean } = c.converged
       ? c
-      : run(c.x, maxIterations, best);
+      : run(c.x, maxIterations, true);
     if (Number.isFinite(res.value) && (!best || res.value < best.value - 1e-12)) {
       best = { x: res.x, value: res.value, converged: res.converged };
     }
