@@ -4,6 +4,8 @@
  * run did with the planner's decisions) are read defensively: a field the run did not write shows
  * as empty rather than breaking the screen.
  */
+
+import { polynomialRoots } from '../../core/arma/roots';
 import type { Flag } from '../../core/plan/types';
 import { orderCsv } from '../run/orderCsv';
 import {
@@ -16,7 +18,6 @@ import {
 } from '../store/runs';
 import type { Store } from '../store/store';
 import type { CandidateModel, Complex, DiagnosticLine, ItemResult, OrderLine, ReviewEntry } from './contract';
-import { polynomialRoots } from './polynomial-roots';
 
 export interface ItemSummary {
   model: string | null;

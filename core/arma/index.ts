@@ -7,6 +7,6 @@ export { forecastArma, forecastIntervals, leadTimeMoments } from './forecast';
 export { leadTimeSumVariance, windowSumVariance } from './leadTimeSum';
 export { psiWeights } from './psi';
 export { createRng, type Rng } from './random';
-export { arRoots, maRoots, polynomialRootModuli } from './roots';
+export { arRoots, type ComplexRoot, maRoots, polynomialRootModuli, polynomialRoots } from './roots';
 export { type SimulationModel, simulateArma } from './simulate';
 export type { ArmaFit, ArmaFitOptions, ArmaForecastState, ArmaStandardErrors } from './types';

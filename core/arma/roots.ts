@@ -1,28 +1,49 @@
 /**
- * Moduli of the roots of 1 − c_1 z − … − c_k z^k (φ(z) for the AR part, θ(z) for the ma-minus MA
- * part); all > 1 means stationary / invertible (Box, Jenkins & Reinsel, ch. 3). The roots are the
+ * Roots of 1 − c_1 z − … − c_k z^k (φ(z) for the AR part, θ(z) for the ma-minus MA part); all
+ * moduli > 1 means stationary / invertible (Box, Jenkins & Reinsel, ch. 3). The roots are the
  * reciprocals of the eigenvalues λ of the companion matrix of λ^k − c_1 λ^{k−1} − … − c_k
  * (eigenvalues by ml-matrix). A zero eigenvalue (trailing zero coefficient) is a root at infinity.
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import type { ArmaFit } from './types';
 
+export interface ComplexRoot {
+  re: number;
+  im: number;
+}
+
+/** The finite complex roots (roots at infinity left out); empty for a zero or non-finite polynomial. */
+export function polynomialRoots(coef: ArrayLike<number>): ComplexRoot[] {
+  const eig = companionEigenvalues(coef);
+  const out: ComplexRoot[] = [];
+  for (const { re, im } of eig) {
+    const m2 = re * re + im * im;
+    // z = 1/λ = (re − i·im)/|λ|²
+    if (m2 > 0) out.push({ re: re / m2, im: -im / m2 });
+  }
+  return out;
+}
+
+/** Moduli of every root, ascending; a root at infinity counts as +∞. */
 export function polynomialRootModuli(coef: ArrayLike<number>): number[] {
+  return companionEigenvalues(coef)
+    .map(({ re, im }) => {
+      const mod = Math.hypot(re, im);
+      return mod === 0 ? Number.POSITIVE_INFINITY : 1 / mod;
+    })
+    .sort((a, b) => a - b);
+}
+
+function companionEigenvalues(coef: ArrayLike<number>): ComplexRoot[] {
   let k = coef.length;
   while (k > 0 && coef[k - 1] === 0) k--;
   if (k === 0) return [];
+  for (let j = 0; j < k; j++) if (!Number.isFinite(coef[j])) return [];
   const C = Matrix.zeros(k, k);
   for (let j = 0; j < k; j++) C.set(0, j, coef[j]);
   for (let i = 1; i < k; i++) C.set(i, i - 1, 1);
   const e = new EigenvalueDecomposition(C);
-  const re = e.realEigenvalues;
-  const im = e.imaginaryEigenvalues;
-  const out: number[] = [];
-  for (let i = 0; i < k; i++) {
-    const mod = Math.hypot(re[i], im[i]);
-    out.push(mod === 0 ? Number.POSITIVE_INFINITY : 1 / mod);
-  }
-  return out.sort((a, b) => a - b);
+  return Array.from({ length: k }, (_, i) => ({ re: e.realEigenvalues[i], im: e.imaginaryEigenvalues[i] }));
 }
 
 export function arRoots(fit: Pick<ArmaFit, 'ar'>): number[] {

@@ -8,11 +8,11 @@ import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { polynomialRoots } from '../../../app/api/polynomial-roots';
 import { connectHost, type HostClient } from '../../../app/transport/host-client';
 import type { HostChannel } from '../../../app/transport/host-protocol';
 import { handleIpcCall, isOwnPage } from '../../../app/transport/ipc';
 import { MAX_RECENT, readRecent, rememberStore } from '../../../app/transport/recent-stores';
+import { polynomialRoots } from '../../../core/arma/roots';
 import { DEFAULT_WORKSPACE } from '../../../core/plan/types';
 
 const ROOT = join(import.meta.dirname, '..', '..', '..');
