@@ -14,14 +14,13 @@
  * - An item that fails gets the run's failed-item line and a flag; it never aborts the run.
  */
 import { abcClasses, annualConsumptionValue } from '../../core/replenish/abc';
-import { lastDemandWeek } from '../store/demand';
+import { getWeeklyHistoriesById, lastDemandWeek } from '../store/demand';
 import { listActiveItems } from '../store/items';
 import { getAllOverrides, toPlanningOverrides } from '../store/overrides';
 import {
   getLatestRun,
   getPastForecasts,
   getRunFingerprints,
-  getRunHistories,
   type ItemRunRecord,
   type PlannedEntry,
   type ReusedEntry,
@@ -187,7 +186,7 @@ async function execute(
     }
     const through = lastDemandWeek(store);
     await yieldToLoop();
-    const histories = getRunHistories(store, through);
+    const histories = getWeeklyHistoriesById(store, { activeOnly: true, to: through });
     await yieldToLoop();
     const positions = getAllPositions(store);
     const overrides = getAllOverrides(store);

@@ -89,35 +89,116 @@ export function getWeeklyHistory(
   return toHistory(getDemandRows(store, sku), options.to === undefined ? lastDemandWeek(store) : options.to);
 }
 
+export interface HistoryOptions {
+  activeOnly?: boolean;
+  skus?: readonly string[];
+  /** Extend each history to this week (default: the store's latest week; null: no extension). */
+  to?: string | null;
+}
+
 /**
- * Histories of many SKUs in one pass over the table (the planning run's bulk read); every selected
- * item is present, an item with no demand as an empty history.
+ * Histories of many items in one grouped query: SQLite builds each item's week list and quantity
+ * array (group_concat, json_group_array), so one row per item crosses into JavaScript instead of
+ * one per week, and the items are laid on one shared weekly calendar (anchored at the store's
+ * latest week), so all histories share the same week-start strings. The result is the same as
+ * `getWeeklyHistory` item by item: an item with a week off that calendar (stored under another
+ * week start day) is read through the per-item path instead. Every selected item is present, an
+ * item with no demand as an empty history. Keyed by item id.
  */
-export function getAllWeeklyHistories(
-  store: Store,
-  options: { activeOnly?: boolean; skus?: readonly string[]; to?: string | null } = {},
-): Map<string, ItemHistory> {
+export function getWeeklyHistoriesById(store: Store, options: HistoryOptions = {}): Map<number, ItemHistory> {
   const to = options.to === undefined ? lastDemandWeek(store) : options.to;
   const wanted = options.skus ? new Set(options.skus) : null;
   const items = store.db
     .prepare(`SELECT id, sku FROM items${options.activeOnly ? ' WHERE active = 1' : ''}`)
-    .all() as {
-    id: number;
-    sku: string;
-  }[];
-  const skuOf = new Map<number, string>();
-  for (const it of items) if (!wanted || wanted.has(it.sku)) skuOf.set(it.id, it.sku);
-  const rowsOf = new Map<number, DemandRow[]>();
-  for (const id of skuOf.keys()) rowsOf.set(id, []);
-  const iter = store.db
-    .prepare('SELECT item_id, week_start, qty, stockout FROM weekly_demand ORDER BY item_id, week_start')
-    .iterate() as Iterable<{ item_id: number; week_start: string; qty: number | null; stockout: number }>;
-  for (const r of iter) {
-    const list = rowsOf.get(r.item_id);
-    if (list) list.push({ weekStart: r.week_start, qty: r.qty, stockout: r.stockout === 1 });
+    .all() as { id: number; sku: string }[];
+  const selected = new Set<number>();
+  for (const it of items) if (!wanted || wanted.has(it.sku)) selected.add(it.id);
+  const out = new Map<number, ItemHistory>();
+  const span = store.db
+    .prepare('SELECT min(week_start) AS lo, max(week_start) AS hi FROM weekly_demand')
+    .get() as {
+    lo: string | null;
+    hi: string | null;
+  };
+  const lo = span.lo === null ? null : parseIsoDate(span.lo);
+  const hi = span.hi === null ? null : parseIsoDate(span.hi);
+  if (selected.size > 0 && lo !== null && hi !== null) {
+    // Shared calendar: every week start on the latest week's weekday from the earliest stored week
+    // to the later of the latest stored week and `to`.
+    const start = hi - 7 * Math.floor((hi - lo) / 7);
+    const toDay = to === null ? null : parseIsoDate(to);
+    const endDay = toDay !== null && toDay > hi ? hi + 7 * Math.floor((toDay - hi) / 7) : hi;
+    const calendar = new Array<string>((endDay - start) / 7 + 1);
+    const index = new Map<string, number>();
+    for (let i = 0; i < calendar.length; i++) {
+      calendar[i] = formatIsoDate(start + 7 * i);
+      index.set(calendar[i], i);
+    }
+    // The calendar index of the last week at or before `to` (-1: no extension).
+    const toIndex = toDay === null || toDay < start ? -1 : Math.floor((Math.min(toDay, endDay) - start) / 7);
+    const perItem = store.db.prepare(
+      'SELECT week_start, qty, stockout FROM weekly_demand WHERE item_id = ? ORDER BY week_start',
+    );
+    const grouped = store.db
+      .prepare(
+        `SELECT item_id, group_concat(week_start), json_group_array(CASE WHEN stockout = 1 THEN NULL ELSE qty END),
+                group_concat(stockout, '')
+         FROM weekly_demand GROUP BY item_id`,
+      )
+      .raw()
+      .iterate() as Iterable<[number, string, string, string]>;
+    for (const [itemId, weeksText, qtyJson, stockouts] of grouped) {
+      if (!selected.has(itemId)) continue;
+      const weeks = weeksText.split(',');
+      const at = new Int32Array(weeks.length);
+      let first = calendar.length;
+      let last = -1;
+      let onCalendar = true;
+      for (let k = 0; k < weeks.length; k++) {
+        const i = index.get(weeks[k]);
+        if (i === undefined) {
+          onCalendar = false;
+          break;
+        }
+        at[k] = i;
+        if (i < first) first = i;
+        if (i > last) last = i;
+      }
+      if (!onCalendar) {
+        const rows = (
+          perItem.all(itemId) as { week_start: string; qty: number | null; stockout: number }[]
+        ).map((r) => ({ weekStart: r.week_start, qty: r.qty, stockout: r.stockout === 1 }));
+        out.set(itemId, toHistory(rows, to));
+        continue;
+      }
+      const values = JSON.parse(qtyJson) as (number | null)[];
+      const end = Math.max(last, toIndex);
+      const qty = new Array<number | null>(end - first + 1).fill(null);
+      const marked: number[] = [];
+      for (let k = 0; k < weeks.length; k++) {
+        qty[at[k] - first] = values[k];
+        if (stockouts.charCodeAt(k) === 49) marked.push(at[k]);
+      }
+      marked.sort((a, b) => a - b);
+      out.set(itemId, {
+        weekStart: calendar.slice(first, end + 1),
+        qty,
+        stockoutWeeks: marked.map((i) => calendar[i]),
+      });
+    }
   }
+  for (const id of selected) if (!out.has(id)) out.set(id, { weekStart: [], qty: [], stockoutWeeks: [] });
+  return out;
+}
+
+/** `getWeeklyHistoriesById` keyed by SKU. */
+export function getAllWeeklyHistories(store: Store, options: HistoryOptions = {}): Map<string, ItemHistory> {
+  const byId = getWeeklyHistoriesById(store, options);
   const out = new Map<string, ItemHistory>();
-  for (const [id, sku] of skuOf) out.set(sku, toHistory(rowsOf.get(id) ?? [], to));
+  for (const it of store.db.prepare('SELECT id, sku FROM items').all() as { id: number; sku: string }[]) {
+    const h = byId.get(it.id);
+    if (h) out.set(it.sku, h);
+  }
   return out;
 }
 

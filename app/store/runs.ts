@@ -10,9 +10,7 @@
  * of a reused item's order quantity is carried with it (same line, same decision); an item planned
  * afresh gets a new suggestion and no edit.
  */
-import type { Flag, ForecastPoint, ServiceKind, WeeklyHistory } from '../../core/plan/types';
-import { fillWeeklyGaps } from '../../core/series/gaps';
-import { getWeeklyHistory } from './demand';
+import type { Flag, ForecastPoint, ServiceKind } from '../../core/plan/types';
 import { nowIso, type Store } from './store';
 
 export interface ModelRecord {
@@ -132,68 +130,6 @@ export function getRunFingerprints(
     .iterate(runId) as Iterable<{ item_id: number; fingerprint: string; status: ItemRunResult['status'] }>) {
     out.set(r.item_id, { fingerprint: r.fingerprint, status: r.status });
   }
-  return out;
-}
-
-/**
- * item id → weekly history of every active item, from its first stored week to `through`, for the
- * planning run: the same content as getAllWeeklyHistories (missing and stocked-out weeks null),
- * read with one grouped query (SQLite builds each item's arrays, so 10,000 rows cross into
- * JavaScript instead of 1.5 million) and laid on one shared weekly calendar (core/series gap
- * filling), so all items share the same week-start strings. An item with a week off that
- * calendar (another week start day) is read through getWeeklyHistory instead.
- */
-export function getRunHistories(store: Store, through: string | null): Map<number, WeeklyHistory> {
-  const out = new Map<number, WeeklyHistory>();
-  const items = store.db.prepare('SELECT id, sku FROM items WHERE active = 1').all() as {
-    id: number;
-    sku: string;
-  }[];
-  const first = (
-    store.db.prepare('SELECT min(week_start) AS w FROM weekly_demand').get() as { w: string | null }
-  ).w;
-  if (through === null || first === null) {
-    for (const it of items) out.set(it.id, { weekStart: [], qty: [] });
-    return out;
-  }
-  const calendar = fillWeeklyGaps([{ weekStart: first, qty: null }], { to: through }).weekStart;
-  const index = new Map<string, number>();
-  for (let i = 0; i < calendar.length; i++) index.set(calendar[i], i);
-  const grouped = store.db
-    .prepare(
-      `SELECT d.item_id, group_concat(d.week_start), json_group_array(CASE WHEN d.stockout = 1 THEN NULL ELSE d.qty END)
-       FROM weekly_demand d JOIN items i ON i.id = d.item_id AND i.active = 1
-       GROUP BY d.item_id`,
-    )
-    .raw()
-    .iterate() as Iterable<[number, string, string]>;
-  const skuOf = new Map(items.map((it) => [it.id, it.sku]));
-  for (const [itemId, weeksText, qtyJson] of grouped) {
-    const weeks = weeksText.split(',');
-    const values = JSON.parse(qtyJson) as (number | null)[];
-    let lo = Number.POSITIVE_INFINITY;
-    let offCalendar = false;
-    const at = new Int32Array(weeks.length);
-    for (let k = 0; k < weeks.length; k++) {
-      const i = index.get(weeks[k]);
-      if (i === undefined) {
-        offCalendar = true;
-        break;
-      }
-      at[k] = i;
-      if (i < lo) lo = i;
-    }
-    if (offCalendar) {
-      const h = getWeeklyHistory(store, skuOf.get(itemId)!, { to: through });
-      out.set(itemId, h ? { weekStart: h.weekStart, qty: h.qty } : { weekStart: [], qty: [] });
-      continue;
-    }
-    const weekStart = calendar.slice(lo);
-    const qty = new Array<number | null>(weekStart.length).fill(null);
-    for (let k = 0; k < weeks.length; k++) qty[at[k] - lo] = values[k];
-    out.set(itemId, { weekStart, qty });
-  }
-  for (const it of items) if (!out.has(it.id)) out.set(it.id, { weekStart: [], qty: [] });
   return out;
 }
 

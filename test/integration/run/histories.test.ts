@@ -1,6 +1,6 @@
 /**
- * The run's bulk history read (getRunHistories) gives exactly what the store's own reader
- * (getAllWeeklyHistories, the reference here) gives: gaps and stocked-out weeks null, each item
+ * The run's bulk history read (getWeeklyHistoriesById, active items, to the last week) gives
+ * exactly what the store's per-item reader (getWeeklyHistory, the reference here) gives: gaps and stocked-out weeks null, each item
  * from its first stored week to the store's last week, inactive items left out.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -9,9 +9,13 @@ import { join } from 'node:path';
 import { afterAll, expect, it } from 'vitest';
 import { compactHistory, expandHistory } from '../../../app/run/compactHistory';
 import { insertBatch } from '../../../app/store/batches';
-import { demandWriter, getAllWeeklyHistories, lastDemandWeek } from '../../../app/store/demand';
+import {
+  demandWriter,
+  getWeeklyHistoriesById,
+  getWeeklyHistory,
+  lastDemandWeek,
+} from '../../../app/store/demand';
 import { createPlaceholderItems, upsertItems } from '../../../app/store/items';
-import { getRunHistories } from '../../../app/store/runs';
 import { nowIso, openStore } from '../../../app/store/store';
 import { addWeeks, FIRST_WEEK } from './fixtures/makeStore';
 
@@ -40,8 +44,7 @@ it('matches the store reader on gaps, stockouts, late starts, empty and inactive
     upsertItems(store, [{ sku: 'D', active: false }], b);
   });
   const through = lastDemandWeek(store);
-  const ours = getRunHistories(store, through);
-  const ref = getAllWeeklyHistories(store, { activeOnly: true, to: through });
+  const ours = getWeeklyHistoriesById(store, { activeOnly: true, to: through });
   const idOf = new Map(
     ['A', 'B', 'C'].map((sku) => [
       sku,
@@ -50,15 +53,17 @@ it('matches the store reader on gaps, stockouts, late starts, empty and inactive
   );
   expect(ours.size).toBe(3);
   for (const [sku, id] of idOf) {
-    const r = ref.get(sku)!;
-    expect(ours.get(id)).toEqual({ weekStart: r.weekStart, qty: r.qty });
+    expect(ours.get(id)).toEqual(getWeeklyHistory(store, sku, { to: through }));
   }
   // Spelled out for A: weeks 0…12, week 4 missing, 10…12 after its last sale.
   expect(ours.get(idOf.get('A')!)!.qty).toEqual([1, 2, 3, 4, null, 6, 7, 8, 9, 10, null, null, null]);
   // B: starts at week 3; week 5 stocked out and week 7 empty are both null.
   expect(ours.get(idOf.get('B')!)!.qty).toEqual([30, 40, null, 60, null, 80, 90, 100, 110, 120]);
-  expect(ours.get(idOf.get('C')!)).toEqual({ weekStart: [], qty: [] });
+  expect(ours.get(idOf.get('B')!)!.stockoutWeeks).toEqual([addWeeks(FIRST_WEEK, 5)]);
+  expect(ours.get(idOf.get('C')!)).toEqual({ weekStart: [], qty: [], stockoutWeeks: [] });
   // What travels to a worker (first week + quantities) spells out to the same history.
-  for (const h of ours.values()) expect(expandHistory(compactHistory(h))).toEqual(h);
+  for (const h of ours.values()) {
+    expect(expandHistory(compactHistory(h))).toEqual({ weekStart: h.weekStart, qty: h.qty });
+  }
   store.close();
 });
