@@ -11,7 +11,7 @@
  * small integer (item index × 65536 + week index).
  */
 import { formatIsoDate, weekStartOf } from '../../core/series/calendar';
-import type { DemandWriter } from '../store/demand';
+import type { DemandWriter, StoredWeek } from '../store/demand';
 import type { RowContext } from './context';
 import { parseFlag } from './numbers';
 
@@ -298,17 +298,25 @@ export class SalesCollector {
       const sku = this.skus[skuIdx];
       const itemId = ids.get(sku)!;
       const existing = known.has(sku) ? writer.existing(itemId) : null;
+      // Weeks are put in increasing order, and the stored ones come in week order: one cursor
+      // walks them (no map of an item's weeks).
+      let cursor = 0;
       const put = (week: number, qty: number | null, out: boolean) => {
         let ws = isoOf.get(week);
         if (ws === undefined) isoOf.set(week, (ws = formatIsoDate(week)));
-        const prev = existing?.get(ws);
+        let prev: StoredWeek | undefined;
+        if (existing) {
+          while (cursor < existing.length && existing[cursor][0] < ws) cursor++;
+          if (cursor < existing.length && existing[cursor][0] === ws) prev = existing[cursor];
+        }
         if (prev) {
           stats.replaced++;
-          if (prev.qty !== qty || prev.stockout !== out) {
+          const prevOut = prev[2] === 1;
+          if (prev[1] !== qty || prevOut !== out) {
             stats.changed++;
             if (stats.changes.length < 200) {
               stats.changes.push(
-                `${sku} ${ws}: ${prev.qty ?? 'empty'}${prev.stockout ? ' (stockout)' : ''} → ${qty ?? 'empty'}${out ? ' (stockout)' : ''}`,
+                `${sku} ${ws}: ${prev[1] ?? 'empty'}${prevOut ? ' (stockout)' : ''} → ${qty ?? 'empty'}${out ? ' (stockout)' : ''}`,
               );
             }
           }
@@ -319,12 +327,10 @@ export class SalesCollector {
       // item new to the store starts at its first line.
       let nextWeek = this.weekDay[order[i]];
       if (this.dated && existing) {
-        let earlier = false;
-        for (const w of existing.keys()) if (w < fileFirstWeekIso) earlier = true;
-        if (earlier) nextWeek = fileFirstWeek;
+        if (existing.length > 0 && existing[0][0] < fileFirstWeekIso) nextWeek = fileFirstWeek;
         // Every week from here to the file's last week is written below, so the stored ones are
         // cleared first: plain inserts are about twice as fast as resolving a conflict per row.
-        if (existing.size > 0) writer.clearRange(itemId, formatIsoDate(nextWeek), formatIsoDate(lastWeek));
+        if (existing.length > 0) writer.clearRange(itemId, formatIsoDate(nextWeek), formatIsoDate(lastWeek));
       }
       while (i < this.n && Math.floor(keys[order[i]] / 65536) === skuIdx) {
         const s = order[i];
@@ -349,10 +355,9 @@ export class SalesCollector {
     if (this.dated && this.n > 0) {
       for (const [sku, itemId] of activeKnown) {
         if (this.skuIndex.has(sku)) continue;
-        const existing = writer.existing(itemId);
-        let earlier = false;
-        for (const w of existing.keys()) if (w < fileFirstWeekIso) earlier = true;
-        if (!earlier) continue;
+        const stored = writer.existing(itemId);
+        if (stored.length === 0 || stored[0][0] >= fileFirstWeekIso) continue;
+        const existing = new Set(stored.map((r) => r[0]));
         let filled = false;
         for (let w = fileFirstWeek; w <= lastWeek; w += 7) {
           const ws = formatIsoDate(w);

@@ -205,56 +205,65 @@ export function getAllWeeklyHistories(store: Store, options: HistoryOptions = {}
 /**
  * Writing side for the import: read what an item has, then insert or replace its weeks. Rows are
  * sent to SQLite 250 at a time (one multi-row INSERT … ON CONFLICT), which halves the cost of a
- * large import against one statement per row; call `flush()` before the transaction ends.
+ * large import against one statement per row; call `flush()` before the transaction ends. Rows
+ * still pending are flushed before a read or a delete only when they belong to that item (the
+ * import writes item after item, so this is rare), and the statement for a short final batch is
+ * prepared once per size: a flush per item with a fresh statement each time cost more than the
+ * inserts themselves on a re-import.
  */
 export interface DemandWriter {
-  existing(itemId: number): Map<string, { qty: number | null; stockout: boolean }>;
+  /** An item's stored weeks in week order: [week start, qty, stockout 0/1]. */
+  existing(itemId: number): StoredWeek[];
   upsert(itemId: number, weekStart: string, qty: number | null, stockout: boolean, batchId: number): void;
   /** Delete an item's weeks from `from` to `to` (inclusive week starts), before rewriting all of them. */
   clearRange(itemId: number, from: string, to: string): void;
   flush(): void;
 }
 
+export type StoredWeek = readonly [weekStart: string, qty: number | null, stockout: number];
+
 const BATCH_ROWS = 250;
 const UPSERT_TAIL =
   ' ON CONFLICT (item_id, week_start) DO UPDATE SET qty = excluded.qty, stockout = excluded.stockout, batch_id = excluded.batch_id';
 
 export function demandWriter(store: Store): DemandWriter {
-  const select = store.db.prepare('SELECT week_start, qty, stockout FROM weekly_demand WHERE item_id = ?');
+  const select = store.db
+    .prepare('SELECT week_start, qty, stockout FROM weekly_demand WHERE item_id = ? ORDER BY week_start')
+    .raw();
   const clear = store.db.prepare(
     'DELETE FROM weekly_demand WHERE item_id = ? AND week_start BETWEEN ? AND ?',
   );
-  const insert = (rows: number) =>
-    store.db.prepare(
-      `INSERT INTO weekly_demand (item_id, week_start, qty, stockout, batch_id) VALUES ${Array(rows).fill('(?, ?, ?, ?, ?)').join(', ')}${UPSERT_TAIL}`,
-    );
-  const full = insert(BATCH_ROWS);
+  const statements = new Map<number, ReturnType<typeof store.db.prepare>>();
+  const insert = (rows: number) => {
+    let st = statements.get(rows);
+    if (!st) {
+      st = store.db.prepare(
+        `INSERT INTO weekly_demand (item_id, week_start, qty, stockout, batch_id) VALUES ${Array(rows).fill('(?, ?, ?, ?, ?)').join(', ')}${UPSERT_TAIL}`,
+      );
+      statements.set(rows, st);
+    }
+    return st;
+  };
   const pending: unknown[] = [];
+  const pendingItems = new Set<number>();
   const flush = () => {
     if (pending.length === 0) return;
-    if (pending.length === BATCH_ROWS * 5) full.run(pending);
-    else insert(pending.length / 5).run(pending);
+    insert(pending.length / 5).run(pending);
     pending.length = 0;
+    pendingItems.clear();
   };
   return {
     existing(itemId) {
-      flush();
-      const out = new Map<string, { qty: number | null; stockout: boolean }>();
-      for (const r of select.iterate(itemId) as Iterable<{
-        week_start: string;
-        qty: number | null;
-        stockout: number;
-      }>) {
-        out.set(r.week_start, { qty: r.qty, stockout: r.stockout === 1 });
-      }
-      return out;
+      if (pendingItems.has(itemId)) flush();
+      return select.all(itemId) as StoredWeek[];
     },
     upsert(itemId, weekStart, qty, stockout, batchId) {
       pending.push(itemId, weekStart, qty, stockout ? 1 : 0, batchId);
+      pendingItems.add(itemId);
       if (pending.length === BATCH_ROWS * 5) flush();
     },
     clearRange(itemId, from, to) {
-      flush();
+      if (pendingItems.has(itemId)) flush();
       clear.run(itemId, from, to);
     },
     flush,
