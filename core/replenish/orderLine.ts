@@ -3,6 +3,7 @@ import { economicOrderQuantity } from './eoq';
 import { intervalDemand, type SumMoments } from './intervalDemand';
 import { orderQuantity } from './orderQuantity';
 import { safetyFactor } from './safetyFactor';
+import { weeklyCheckReorder } from './weeklyCheckUndershoot';
 
 /**
  * One item's order line: protection-interval demand → safety stock → reorder point and order-up-to
@@ -12,10 +13,13 @@ import { safetyFactor } from './safetyFactor';
  * - periodic review (R, S), reviewPeriodWeeks = R > 0: protection interval R + L;
  *   S = forecast over R + L + safety stock; an order is due whenever the position is below S
  *   (the reorder point of the line is S itself); fill-rate Q = expected demand of one review period.
- * - continuous review (s, Q), reviewPeriodWeeks = 0: protection interval L; s = forecast over L +
- *   safety stock; order up to S = s + Q with the lot Q = the economic order quantity (Harris 1913)
- *   when costs are known, else one week of forecast demand (our default), and never less than the
- *   minimum order or one case pack; fill-rate Q = that lot.
+ * - continuous review (s, Q), reviewPeriodWeeks = 0: stock is in fact only checked at each weekly
+ *   planning run, so this is the (R, s, nQ) system with R = 1 (core/replenish/weeklyCheckUndershoot):
+ *   s = forecast over L + expected undershoot (the part of the next week's drop that happens before
+ *   the run sees the position) + safety stock; at or below s, order the fewest whole lots Q that
+ *   bring the position back above s. Q = the economic order quantity (Harris 1913) when costs are
+ *   known, else one week of forecast demand (our default), never less than the minimum order or one
+ *   case pack, in whole case packs; the fill-rate Q is that lot. S = s + Q is the highest position.
  * Safety stock = k·σ, never negative; a safety stock fixed by the planner replaces it.
  */
 export type VarianceSource = OrderLine['varianceSource'];
@@ -64,11 +68,35 @@ export function planOrderLine(input: OrderLineInput): OrderLine {
   const eoq = periodic
     ? null
     : economicOrderQuantity(52 * weeklyForYear, settings.orderCost, settings.unitCost, settings.holdingRate);
-  const lotSize = periodic ? null : Math.max(eoq ?? Math.max(0, interval.meanWeekly), moq, pack);
+  const lotBase = periodic ? 0 : Math.max(eoq ?? Math.max(0, interval.meanWeekly), moq, pack);
+  // the lot in whole case packs (the tolerance keeps 24.000000001 from becoming an extra pack)
+  const lotSize = periodic ? null : Math.ceil(lotBase / pack - 1e-9) * pack;
   const cycleDemand = periodic ? R * Math.max(0, interval.meanWeekly) : (lotSize as number);
 
-  const factor = safetyFactor(service.kind, service.level, interval.sd, cycleDemand);
-  const computedSafetyStock = factor.k * interval.sd;
+  let factor: { k: number; method: string };
+  let computedSafetyStock: number;
+  let undershoot = 0;
+  if (periodic) {
+    factor = safetyFactor(service.kind, service.level, interval.sd, cycleDemand);
+    computedSafetyStock = factor.k * interval.sd;
+  } else {
+    // The weekly drop of (position − s): a week's demand plus the revision of the lead-time
+    // forecast, Var(sum of weeks 1..L+1) − Var(sum of weeks 1..L) = σ²(ψ₀ + … + ψ_L)² for ARMA.
+    // (A fractional L interpolates between whole weeks, as intervalDemand does.)
+    const vNext = intervalDemand(input.moments, L + 1, 0, 0).demandVariance;
+    const vLead = intervalDemand(input.moments, L, 0, 0).demandVariance;
+    const wr = weeklyCheckReorder(
+      service.kind,
+      service.level,
+      interval.sd,
+      Math.max(0, interval.meanWeekly),
+      Math.sqrt(Math.max(0, vNext - vLead)),
+      lotSize as number,
+    );
+    factor = { k: wr.k, method: wr.method };
+    computedSafetyStock = wr.safetyStock;
+    undershoot = wr.expectedUndershoot;
+  }
   const qWords =
     service.kind === 'fill'
       ? periodic
@@ -79,7 +107,7 @@ export function planOrderLine(input: OrderLineInput): OrderLine {
   const safetyStock = overridden
     ? Math.max(0, input.safetyStockOverride as number)
     : Math.max(0, computedSafetyStock);
-  const reorderPoint = intervalMean + safetyStock;
+  const reorderPoint = intervalMean + undershoot + safetyStock;
   const orderUpTo = periodic ? reorderPoint : reorderPoint + (lotSize as number);
   const ip = position.onHand + position.onOrder - position.backorders;
 
@@ -138,16 +166,18 @@ export function planOrderLine(input: OrderLineInput): OrderLine {
       eoq != null
         ? `the economic order quantity ${q(eoq)} (Harris)`
         : 'one week of forecast demand (no order and holding costs given)';
+    const raised = lotBase > (eoq ?? interval.meanWeekly) + 1e-9;
+    const packed = (lotSize as number) > lotBase + 1e-9;
     text.push(
-      `Reorder point = ${q(intervalMean)} + ${q(safetyStock)} = ${q(reorderPoint)}; lot ${q(lotSize as number)} from ` +
-        `${lotWords}${(lotSize as number) > (eoq ?? interval.meanWeekly) ? ', raised to the minimum order or one case pack' : ''}; ` +
-        `order-up-to level ${q(orderUpTo)}.`,
+      `Stock is checked at each weekly run, so the reorder point covers lead time + 1 week: by the time a ` +
+        `run sees the position it may have fallen up to a week's demand below the reorder point, ` +
+        `${q(undershoot)}${unit} on average.`,
     );
-    // Measured in test/bench/policy.bench.ts: checked only once a week, the position falls below s
-    // before the order goes out (undershoot) and cycle service ends far below target.
     text.push(
-      'Continuous review assumes stock is watched between planning runs; if it is only checked at a weekly ' +
-        'run, a review period of 1 week protects better.',
+      `Reorder point = ${q(intervalMean)} + ${q(undershoot)} + ${q(safetyStock)} = ${q(reorderPoint)}; lot ` +
+        `${q(lotSize as number)} from ${lotWords}${raised ? ', raised to the minimum order or one case pack' : ''}` +
+        `${packed ? `, rounded up to whole case packs of ${q(pack)}` : ''}; at or below the reorder point, whole ` +
+        `lots are ordered to bring the position back above it (at most ${q(orderUpTo)}).`,
     );
   }
   text.push(
@@ -167,6 +197,7 @@ export function planOrderLine(input: OrderLineInput): OrderLine {
     const oq = orderQuantity({
       orderUpTo,
       reorderPoint,
+      lot: periodic ? null : lotSize,
       inventoryPosition: ip,
       casePack: pack,
       moq,

@@ -1,7 +1,9 @@
 /**
  * The suggested order for one item at one review, from the policy levels and the inventory position:
  *   1. nothing when the inventory position is above the reorder point;
- *   2. otherwise order-up-to level − inventory position,
+ *   2. otherwise order-up-to level − inventory position; or, for a lot-size policy (weekly-checked
+ *      (s, Q), i.e. (R, s, nQ) with R = 1, Silver, Pyke & Thomas), the fewest whole lots Q that bring
+ *      the position back above the reorder point: n = ⌊(s − position)/Q⌋ + 1,
  *   3. rounded UP to whole case packs,
  *   4. raised to the minimum order quantity (itself rounded up to whole case packs),
  *   5. capped, when the item has a shelf life, at what the forecast says will be used before the
@@ -22,6 +24,8 @@ export interface ShelfLifeInput {
 export interface OrderQuantityInput {
   orderUpTo: number;
   reorderPoint: number;
+  /** Lot Q of a lot-size policy: order whole lots instead of up to orderUpTo. */
+  lot?: number | null;
   inventoryPosition: number;
   casePack: number;
   moq: number;
@@ -56,11 +60,22 @@ export function orderQuantity(input: OrderQuantityInput): OrderQuantity {
     applied.push('above-reorder-point');
     return { qty: 0, casePacks: 0, raw: 0, shelfLifeLimit: null, applied, steps };
   }
-  const raw = Math.max(0, input.orderUpTo - ip);
-  steps.push(
-    `The position ${n(ip)} is at or below the reorder point ${n(input.reorderPoint)}: order-up-to level ` +
-      `${n(input.orderUpTo)} − position ${n(ip)} = ${n(raw)}.`,
-  );
+  const lot = input.lot != null && input.lot > 0 && Number.isFinite(input.lot) ? input.lot : null;
+  let raw: number;
+  if (lot != null) {
+    const lots = Math.floor((input.reorderPoint - ip) / lot) + 1;
+    raw = lots * lot;
+    steps.push(
+      `The position ${n(ip)} is at or below the reorder point ${n(input.reorderPoint)}: ${lots} lot${lots === 1 ? '' : 's'} ` +
+        `of ${n(lot)} = ${n(raw)} bring${lots === 1 ? 's' : ''} it back above (to ${n(ip + raw)}).`,
+    );
+  } else {
+    raw = Math.max(0, input.orderUpTo - ip);
+    steps.push(
+      `The position ${n(ip)} is at or below the reorder point ${n(input.reorderPoint)}: order-up-to level ` +
+        `${n(input.orderUpTo)} − position ${n(ip)} = ${n(raw)}.`,
+    );
+  }
   const rounded = packRound(raw, pack, moq);
   const upPacks = ceilPacks(raw, pack);
   if (rounded.qty > 0 && upPacks * pack !== raw) {

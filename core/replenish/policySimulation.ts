@@ -4,6 +4,7 @@ import { simulateArma } from '../arma/simulate';
 import type { ServiceKind } from '../plan/types';
 import { packRound } from './orderQuantity';
 import { safetyFactor } from './safetyFactor';
+import { weeklyCheckReorder } from './weeklyCheckUndershoot';
 
 /**
  * Policy check by simulation: draw years of weekly demand from a stationary ARMA model
@@ -19,14 +20,20 @@ import { safetyFactor } from './safetyFactor';
  *   of one review's order and the next arrival; it is stocked out when the net stock (on hand −
  *   backorders) is negative at its end, i.e. at the end of week t + L + R − 1 for a review at t
  *   (demand is never negative, so that is the lowest point of the cycle);
- * - cycle service, continuous review (s, Q) checked weekly: each order's cycle ends just before it
- *   arrives (end of week t + L − 1); weekly checking lets the position fall below s before an order
- *   (undershoot), which the textbook formula ignores, so expect less than the target there;
+ * - cycle service, continuous review (s, Q) checked weekly: the same definition — a cycle runs from
+ *   one arrival to the next and is stocked out when net stock is negative at its end — so each
+ *   order's cycle (the one its arrival closes) ends just before it arrives (end of week t + L − 1).
+ *   (For R = 1 with an order every week both definitions give the same weeks.);
  * - fill rate: 1 − (demand not met from stock when it occurred) / (total demand);
  * - average inventory: mean on-hand stock at the end of a week.
  * The policy's σ is the model's sum variance over the protection interval ('sum-variance'), or the
- * one-step σ × √(weeks) of the √L rule ('sqrt-weeks') for comparison. The fill-rate Q is the model
- * mean × R (periodic) or the lot (continuous), fixed for the run. Simulated demand below zero (rare
+ * one-step σ × √(weeks) of the √L rule ('sqrt-weeks') for comparison. Continuous review with
+ * 'sum-variance' is the weekly-checked (R, s, nQ) rule of core/replenish/weeklyCheckUndershoot
+ * (s = forecast over L + expected undershoot + safety stock; whole lots back above s); the weekly
+ * drop it needs is Var(sum 1..L+1) − Var(sum 1..L) of the model. 'lead-time-only' is the rule this
+ * replaced, kept for comparison: s = forecast over L + k·σ_L (textbook (s, Q), undershoot ignored),
+ * order up to s + Q. The fill-rate Q is the model mean × R (periodic) or the lot (continuous),
+ * fixed for the run. Simulated demand below zero (rare
  * for the models this is meant for) is served as zero and counted.
  */
 export interface PolicySimulationInput {
@@ -37,7 +44,7 @@ export interface PolicySimulationInput {
   service: { kind: ServiceKind; level: number };
   years: number;
   seed: number;
-  rule?: 'sum-variance' | 'sqrt-weeks';
+  rule?: 'sum-variance' | 'sqrt-weeks' | 'lead-time-only';
   /** Continuous review lot; default one week of mean demand. */
   lotSize?: number;
   casePack?: number;
@@ -61,6 +68,8 @@ export interface PolicySimulationResult {
   intervalSd: number;
   safetyFactor: number;
   safetyStock: number;
+  /** Continuous review: the E[u] added to the reorder point (0 otherwise). */
+  expectedUndershoot: number;
   negativeDemandWeeks: number;
 }
 
@@ -86,13 +95,30 @@ export function simulatePolicy(input: PolicySimulationInput): PolicySimulationRe
   const moq = input.moq ?? 0;
   const lot = input.lotSize ?? Math.max(mu, pack);
 
-  const psi = psiWeights(model.ar, model.ma, Math.max(T, 1));
+  const psi = psiWeights(model.ar, model.ma, Math.max(T, 1) + 1);
   const sd =
     input.rule === 'sqrt-weeks'
       ? Math.sqrt(model.sigma2 * T)
       : Math.sqrt(windowSumVariance(psi, model.sigma2, 1, T));
-  const factor = safetyFactor(input.service.kind, input.service.level, sd, periodic ? R * mu : lot);
-  const ss = input.safetyStock ?? Math.max(0, factor.k * sd);
+  const oldRule = input.rule === 'lead-time-only';
+  let factorK: number;
+  let ss: number;
+  let undershoot = 0;
+  if (periodic || input.rule === 'sqrt-weeks' || input.rule === 'lead-time-only') {
+    const factor = safetyFactor(input.service.kind, input.service.level, sd, periodic ? R * mu : lot);
+    factorK = factor.k;
+    ss = input.safetyStock ?? Math.max(0, factor.k * sd);
+  } else {
+    // the weekly drop of position − s: one week's demand plus the revision of the L-week forecast
+    const dropVar = Math.max(
+      0,
+      windowSumVariance(psi, model.sigma2, 1, L + 1) - windowSumVariance(psi, model.sigma2, 1, L),
+    );
+    const w = weeklyCheckReorder(input.service.kind, input.service.level, sd, mu, Math.sqrt(dropVar), lot);
+    factorK = w.k;
+    undershoot = w.expectedUndershoot;
+    ss = input.safetyStock ?? w.safetyStock;
+  }
 
   const y = simulateArma({ ar: model.ar, ma: model.ma, sigma2: model.sigma2, mean: mu }, n, input.seed);
   const e = new Float64Array(n);
@@ -136,11 +162,14 @@ export function simulatePolicy(input: PolicySimulationInput): PolicySimulationRe
         f[h - 1] = v;
         sum += v + mu;
       }
-      const level = sum + ss;
+      const level = sum + undershoot + ss;
       const position = net + onOrder;
       let raw = 0;
       if (periodic) raw = level - position;
-      else if (position <= level) raw = level + lot - position;
+      else if (position <= level) {
+        // whole lots back above s; the old 'lead-time-only' rule ordered up to s + Q instead
+        raw = oldRule ? level + lot - position : (Math.floor((level - position) / lot) + 1) * lot;
+      }
       const { qty } = packRound(raw, pack, moq);
       if (qty > 0) {
         if (L === 0) net += qty;
@@ -198,7 +227,8 @@ export function simulatePolicy(input: PolicySimulationInput): PolicySimulationRe
     averageBackorders: backorderTotal / weeks,
     orders,
     intervalSd: sd,
-    safetyFactor: factor.k,
+    safetyFactor: factorK,
+    expectedUndershoot: undershoot,
     safetyStock: ss,
     negativeDemandWeeks: negatives,
   };

@@ -3,6 +3,9 @@
  * (core/replenish/policySimulation), beside the √L rule on the same demand. Prints figures; the
  * pass/fail ranges are in test/unit/replenish/policySimulation.test.ts. Demand models in the
  * ma-minus convention, mean 100, σ_ε = 10; the policy uses the true model's moments.
+ * Continuous review is checked at each weekly run: the weekly-check (R, s, nQ) rule with R = 1
+ * ("ours"), the √L rule, and the textbook (s, Q) rule it replaced (protection over L only, order up
+ * to s + Q: "old").
  */
 import { simulatePolicy } from '../../core/replenish/policySimulation';
 
@@ -16,14 +19,16 @@ const pct = (x: number) => `${(100 * x).toFixed(2)}%`;
 const started = performance.now();
 for (const [review, lot] of [
   [1, undefined],
-  [0, 100],
+  [0, 200],
+  [0, 400],
   [0, 800],
 ] as const) {
+  const continuous = review === 0;
   process.stdout.write(
-    `\n${review ? 'periodic review R = 1 (protection interval L + 1)' : `continuous review (s, Q) checked weekly, lot ${lot} = ${(lot ?? 0) / 100} weeks of demand (protection interval L)`}; ${years} years each\n`,
+    `\n${continuous ? `continuous review (s, Q) checked at each weekly run, lot ${lot} = ${(lot ?? 0) / 100} weeks of demand` : 'periodic review R = 1 (protection interval L + 1)'}; ${years} years each\n`,
   );
   process.stdout.write(
-    'model                      L  | cycle 95%: ours    √L rule  | fill 98%: ours    √L rule  | avg on hand ours/√L (cycle)\n',
+    `model                      L  | cycle 95%: ours    √L rule${continuous ? '     old' : ''}  | fill 98%: ours    √L rule${continuous ? '     old' : ''}  | avg on hand ours/√L (cycle)\n`,
   );
   for (const m of models) {
     for (const L of [2, 6]) {
@@ -39,12 +44,28 @@ for (const [review, lot] of [
       const cs = simulatePolicy({ ...base, service: { kind: 'cycle', level: 0.95 }, rule: 'sqrt-weeks' });
       const f = simulatePolicy({ ...base, service: { kind: 'fill', level: 0.98 } });
       const fs = simulatePolicy({ ...base, service: { kind: 'fill', level: 0.98 }, rule: 'sqrt-weeks' });
+      let oldC = '';
+      let oldF = '';
+      if (continuous) {
+        const co = simulatePolicy({
+          ...base,
+          service: { kind: 'cycle', level: 0.95 },
+          rule: 'lead-time-only',
+        });
+        const fo = simulatePolicy({
+          ...base,
+          service: { kind: 'fill', level: 0.98 },
+          rule: 'lead-time-only',
+        });
+        oldC = pct(co.cycleServiceLevel).padStart(8);
+        oldF = pct(fo.fillRate).padStart(8);
+      }
       process.stdout.write(
-        `${m.name.padEnd(26)} ${L}  | ${pct(c.cycleServiceLevel).padStart(15)} ${pct(cs.cycleServiceLevel).padStart(9)}  | ${pct(
+        `${m.name.padEnd(26)} ${L}  | ${pct(c.cycleServiceLevel).padStart(15)} ${pct(cs.cycleServiceLevel).padStart(9)}${oldC}  | ${pct(
           f.fillRate,
         ).padStart(
           14,
-        )} ${pct(fs.fillRate).padStart(9)}  | ${c.averageOnHand.toFixed(1)} / ${cs.averageOnHand.toFixed(1)}\n`,
+        )} ${pct(fs.fillRate).padStart(9)}${oldF}  | ${c.averageOnHand.toFixed(1)} / ${cs.averageOnHand.toFixed(1)}\n`,
       );
     }
   }

@@ -1,3 +1,5 @@
+import cdf from '@stdlib/stats-base-dists-normal-cdf';
+import pdf from '@stdlib/stats-base-dists-normal-pdf';
 import { describe, expect, it } from 'vitest';
 import { psiWeights } from '../../../core/arma/psi';
 import { abcClasses, annualConsumptionValue, serviceTarget } from '../../../core/replenish/abc';
@@ -21,6 +23,37 @@ const settings: OrderLineInput['settings'] = {
 const flat = (level: number, n = 60) => new Float64Array(n).fill(level);
 const whiteNoise = (sigma2: number, level: number) =>
   armaSumMoments(psiWeights([], [], 60), sigma2, flat(level));
+
+// Independent check of the weekly-check reorder point: composite Simpson over the undershoot u on
+// [0, m + 10 s.d.], density P(d > u)/E[d] with d ~ N(m, sd²) (stationary-excess distribution of the
+// weekly drop, renewal theory); Φ from @stdlib, G(k) = φ(k) − k(1 − Φ(k)).
+function undershootSum(f: (u: number) => number, m: number, sd: number): number {
+  const n = 2000;
+  const top = m + 10 * sd;
+  const h = top / n;
+  let num = 0;
+  let den = 0;
+  for (let i = 0; i <= n; i++) {
+    const u = i * h;
+    const wgt = (i === 0 || i === n ? 1 : i % 2 === 1 ? 4 : 2) * cdf((m - u) / sd, 0, 1);
+    num += wgt * f(u);
+    den += wgt;
+  }
+  return num / den;
+}
+function stockoutProbability(x: number, sdL: number, m: number, sd: number): number {
+  return undershootSum((u) => cdf(-(x - u) / sdL, 0, 1), m, sd);
+}
+function expectedShortage(x: number, sdL: number, m: number, sd: number): number {
+  return undershootSum(
+    (u) => {
+      const k = (x - u) / sdL;
+      return sdL * (pdf(k, 0, 1) - k * cdf(-k, 0, 1));
+    },
+    m,
+    sd,
+  );
+}
 
 describe('order line', () => {
   it('periodic review, white noise: S = 3·100 + 1.645·√(3·100) = 328.49; position 150 → 179', () => {
@@ -50,8 +83,13 @@ describe('order line', () => {
     expect(line.explanation).toMatch(/on hand 120 \+ on order 40 − backorders 10 = 150/);
   });
 
-  it('continuous review with costs: EOQ = √(2·50·5200/(0.25·4)) = 721.1 sets the lot; s = 200 + SS', () => {
-    // D = 52 × 100 = 5200 a year, A = 50, v = 4, r = 0.25: EOQ = √(520000 / 1) = 721.11 (Harris 1913).
+  it('continuous review checked weekly, with costs: EOQ 721.1 → lot 722; s = 200 + E[u] 50.5 + SS; one lot', () => {
+    // D = 52 × 100 = 5200 a year, A = 50, v = 4, r = 0.25: EOQ = √(520000 / 1) = 721.11 (Harris 1913),
+    // rounded up to whole units (pack 1): lot 722.
+    // Checked at each weekly run = (R, s, nQ) with R = 1 (core/replenish/weeklyCheckUndershoot):
+    // lead-time demand over L = 2 weeks, mean 200, σ_L = √200; weekly drop N(100, 10²) (white noise:
+    // Var(3-week sum) − Var(2-week sum) = 300 − 200); mean undershoot E[d²]/(2E[d]) =
+    // (100² + 10²)/200 = 50.5 (renewal theory, the mean of the stationary-excess distribution).
     const line = planOrderLine({
       settings: { ...settings, reviewPeriodWeeks: 0, unitCost: 4, holdingRate: 0.25, orderCost: 50 },
       moments: whiteNoise(100, 100),
@@ -61,13 +99,58 @@ describe('order line', () => {
       varianceSource: 'model',
     });
     expect(line.eoq).toBeCloseTo(Math.sqrt(520000), 8);
-    expect(line.lotSize).toBeCloseTo(721.11, 2);
+    expect(line.lotSize).toBe(722);
     expect(line.intervalWeeks).toBe(2);
-    expect(line.reorderPoint).toBeCloseTo(200 + 1.644853627 * Math.sqrt(200), 6); // 223.26
-    expect(line.orderUpTo).toBeCloseTo(line.reorderPoint + 721.11, 2);
-    // 150 ≤ 223.26, so order S − 150 = 794.37 → 795 whole units
-    expect(line.orderQty).toBe(795);
+    expect(line.intervalForecast).toBeCloseTo(200, 10);
+    const undershoot = line.reorderPoint - 200 - line.safetyStock;
+    expect(undershoot).toBeCloseTo(50.5, 2);
+    // The reorder point meets its definition: P(D_L + u > s) = 5%, checked by an independent
+    // Simpson sum over u (density P(d > u)/E[d]) of P(N(200, 200) > s − u).
+    expect(stockoutProbability(line.reorderPoint - 200, Math.sqrt(200), 100, 10)).toBeCloseTo(0.05, 4);
+    expect(line.orderUpTo).toBeCloseTo(line.reorderPoint + 722, 8);
+    // 150 ≤ s ≈ 304.2: n = ⌊(304.2 − 150)/722⌋ + 1 = 1 lot of 722
+    expect(line.orderQty).toBe(722);
     expect(line.explanation).toMatch(/economic order quantity 721 \(Harris\)/);
+    expect(line.explanation).toMatch(
+      /checked at each weekly run, so the reorder point covers lead time \+ 1 week/,
+    );
+    expect(line.explanation).toMatch(/1 lot of 722 = 722/);
+  });
+
+  it('continuous review: a position far below s gets as many whole lots as bring it back above', () => {
+    // lot = one week of forecast (no costs) = 100; s ≈ 304 as above (same demand, same target);
+    // position −150 (backorders): n = ⌊(304.2 + 150)/100⌋ + 1 = 5 lots = 500 → position 350 > s.
+    const line = planOrderLine({
+      settings: { ...settings, reviewPeriodWeeks: 0 },
+      moments: whiteNoise(100, 100),
+      forecastMeans: flat(100),
+      position: { onHand: 0, onOrder: 0, backorders: 150, asOf: null },
+      service: { level: 0.95, kind: 'cycle', source: 'item' },
+      varianceSource: 'model',
+    });
+    expect(line.lotSize).toBe(100);
+    expect(line.reorderPoint).toBeGreaterThan(300);
+    expect(line.reorderPoint).toBeLessThan(350);
+    expect(line.orderQty).toBe(500);
+    expect(line.inventoryPosition + line.orderQty).toBeGreaterThan(line.reorderPoint);
+    expect(line.inventoryPosition + line.orderQty - 100).toBeLessThanOrEqual(line.reorderPoint);
+  });
+
+  it('continuous review, fill rate: the lot is the Q in the shortage per cycle', () => {
+    // β = 0.98, Q = lot 400 (case packs of 400 = MOQ): expected shortage per cycle Q(1 − β) = 8,
+    // checked by the independent Simpson sum E_u[σ_L·G((x − u)/σ_L)].
+    const line = planOrderLine({
+      settings: { ...settings, reviewPeriodWeeks: 0, moq: 400 },
+      moments: whiteNoise(100, 100),
+      forecastMeans: flat(100),
+      position: { onHand: 400, onOrder: 0, backorders: 0, asOf: null },
+      service: { level: 0.98, kind: 'fill', source: 'item' },
+      varianceSource: 'model',
+    });
+    expect(line.lotSize).toBe(400);
+    expect(expectedShortage(line.reorderPoint - 200, Math.sqrt(200), 100, 10)).toBeCloseTo(8, 3);
+    expect(line.orderQty).toBe(0); // 400 is above s
+    expect(line.explanation).toMatch(/Q\(1 − β\) = 400·0\.02/);
   });
 
   it('fill rate: Q per review period enters G(k); a safety stock can come out as zero, never negative', () => {
