@@ -2,7 +2,9 @@ import { windowSumVariance } from '../arma/leadTimeSum';
 
 /**
  * Demand over the protection interval: L weeks for continuous review (s, Q), R + L weeks for
- * periodic review (R, S), counted from the first week after the last observed one.
+ * periodic review (R, S), counted from the first week after the last observed one. (A continuous-
+ * review item is only checked at each weekly run; the extra week it is exposed to is covered by the
+ * undershoot term of core/replenish/weeklyCheckUndershoot, not by lengthening this interval.)
  *
  * The demand part comes from the model's moments of the SUM over the interval, covariances between
  * horizons included (for an ARMA model σ² Σ_k c_k², core/arma/leadTimeSum), not from √L × one-week σ.

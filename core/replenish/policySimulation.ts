@@ -32,7 +32,8 @@ import { weeklyCheckReorder } from './weeklyCheckUndershoot';
  * (s = forecast over L + expected undershoot + safety stock; whole lots back above s); the weekly
  * drop it needs is Var(sum 1..L+1) − Var(sum 1..L) of the model. 'lead-time-only' is the rule this
  * replaced, kept for comparison: s = forecast over L + k·σ_L (textbook (s, Q), undershoot ignored),
- * order up to s + Q. The fill-rate Q is the model mean × R (periodic) or the lot (continuous),
+ * order up to s + Q. 'lead-time-plus-week' treats the whole extra week as forecast demand: s =
+ * forecast over L + 1 + k·σ_{L+1}, whole lots (measured: it over-protects). The fill-rate Q is the model mean × R (periodic) or the lot (continuous),
  * fixed for the run. Simulated demand below zero (rare
  * for the models this is meant for) is served as zero and counted.
  */
@@ -44,7 +45,7 @@ export interface PolicySimulationInput {
   service: { kind: ServiceKind; level: number };
   years: number;
   seed: number;
-  rule?: 'sum-variance' | 'sqrt-weeks' | 'lead-time-only';
+  rule?: 'sum-variance' | 'sqrt-weeks' | 'lead-time-only' | 'lead-time-plus-week';
   /** Continuous review lot; default one week of mean demand. */
   lotSize?: number;
   casePack?: number;
@@ -84,7 +85,7 @@ export function simulatePolicy(input: PolicySimulationInput): PolicySimulationRe
   }
   if (!(input.years > 0)) throw new RangeError(`simulatePolicy: years must be positive, got ${input.years}`);
   const periodic = R > 0;
-  const T = periodic ? R + L : L;
+  const T = periodic ? R + L : input.rule === 'lead-time-plus-week' ? L + 1 : L;
   const p = model.ar.length;
   const q = model.ma.length;
   const mu = model.mean;
@@ -104,7 +105,7 @@ export function simulatePolicy(input: PolicySimulationInput): PolicySimulationRe
   let factorK: number;
   let ss: number;
   let undershoot = 0;
-  if (periodic || input.rule === 'sqrt-weeks' || input.rule === 'lead-time-only') {
+  if (periodic || (input.rule !== undefined && input.rule !== 'sum-variance')) {
     const factor = safetyFactor(input.service.kind, input.service.level, sd, periodic ? R * mu : lot);
     factorK = factor.k;
     ss = input.safetyStock ?? Math.max(0, factor.k * sd);

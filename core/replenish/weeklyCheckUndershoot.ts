@@ -12,10 +12,11 @@ import { standardNormalLoss } from './normalLoss';
  * sees it, it is below s by an UNDERSHOOT u ≥ 0. The order then arrives L weeks later, and the cycle
  * that ends just before it arrives is stocked out when D_L + u > s (D_L: demand over the lead time).
  *
- * Approximation used: with the position after ordering spread evenly over (s, s + Q] (the (R, s, nQ)
- * result, Hadley & Whitin) and Q at least a couple of weeks' demand, u follows the equilibrium
- * (stationary-excess) distribution of the weekly drop, density P(d > u) / E[d⁺], u ≥ 0 (renewal
- * theory); d is taken as normal with the one-week forecast mean and variance, and u independent of
+ * Approximation used: the position after ordering is spread evenly over (s, s + Q] (the (R, s, nQ)
+ * result, Hadley & Whitin), so at a run that orders, u = d − V with V uniform on (0, Q] and d > V:
+ * density ∝ P(d > u) − P(d > u + Q), u ≥ 0. For Q above the largest weekly drop that is the
+ * stationary-excess distribution P(d > u)/E[d⁺] of renewal theory, mean E[d²]/(2E[d]). The drop d is
+ * taken as normal (caller's mean and s.d.), successive drops as independent, and u independent of
  * the lead-time forecast error (u is known at the run, the later errors are not). Then
  *   P(stockout in a cycle) = E_u[1 − Φ((x − u)/σ_L)],
  *   expected shortage per cycle = E_u[σ_L · G((x − u)/σ_L)],
@@ -57,6 +58,9 @@ export function weeklyCheckReorder(
   const sL = Math.max(0, leadSd);
   // Undershoot grid on [0, top]: P(d > u) is below 1e-15 past m + 8 s.d.
   const top = m + 8 * sdD;
+  const q = Math.max(0, lot);
+  // P(d > v) for the weekly drop d ~ N(m, sdD²); a step at m when it does not vary
+  const over = (v: number): number => (sdD > 0 ? cdf((m - v) / sdD, 0, 1) : v <= m ? 1 : 0);
   const u = new Float64Array(GRID + 1);
   const g = new Float64Array(GRID + 1);
   let eu = 0;
@@ -66,7 +70,7 @@ export function weeklyCheckReorder(
     let norm = 0;
     for (let i = 0; i <= GRID; i++) {
       u[i] = i * h;
-      const tail = sdD > 0 ? cdf((m - u[i]) / sdD, 0, 1) : u[i] <= m ? 1 : 0;
+      const tail = over(u[i]) - over(u[i] + q);
       g[i] = (i === 0 || i === GRID ? 1 : i % 2 === 1 ? 4 : 2) * tail; // composite Simpson
       norm += g[i];
     }

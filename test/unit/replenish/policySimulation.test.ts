@@ -108,28 +108,35 @@ describe('policy check by simulation (periodic review, R = 1)', () => {
 // whole lots back above s. Cycle service per replenishment cycle with the same definition as
 // periodic review (a cycle runs from one arrival to the next; stocked out when net stock is negative
 // at its end). Figures measured with `npm run bench -- policy` (4,000 years each, seeds 44 and 48),
-// new rule / the rule it replaced (s over L with the textbook k, undershoot ignored, up to s + Q):
-//   lot (weeks)  model       L  cycle 95%: new / old     fill 98%: new / old
-//   2            AR(1)       2  94.89% / 37.14%          97.96% / 83.18%
-//   2            AR(1)       6  95.05% / 72.59%          98.04% / 90.96%
-//   2            MA(1)       2  95.01% / 40.57%          97.99% / 79.14%
-//   2            MA(1)       6  95.00% / 41.86%          97.99% / 79.98%
-//   2            ARMA(1,1)   2  94.75% / 40.95%          97.93% / 83.57%
-//   2            ARMA(1,1)   6  95.09% / 78.79%          98.03% / 92.53%
-//   4            AR(1)       2  94.98% / 32.79%          97.98% / 88.26%
-//   4            AR(1)       6  95.00% / 71.66%          98.02% / 92.35%
-//   4            MA(1)       2  94.96% / 38.65%          97.99% / 88.44%
-//   4            MA(1)       6  94.88% / 40.93%          97.98% / 88.25%
-//   4            ARMA(1,1)   2  94.77% / 38.93%          97.95% / 88.30%
-//   4            ARMA(1,1)   6  95.07% / 78.75%          98.03% / 93.45%
-//   8            AR(1)       2  94.98% / 32.04%          98.04% / 93.63%
-//   8            AR(1)       6  94.92% / 72.17%          98.00% / 94.05%
-//   8            MA(1)       2  94.85% / 34.55%          98.34% / 93.94%
-//   8            MA(1)       6  94.92% / 38.22%          98.28% / 93.86%
-//   8            ARMA(1,1)   2  94.69% / 39.17%          97.95% / 93.40%
-//   8            ARMA(1,1)   6  95.07% / 78.95%          98.01% / 94.55%
+// new rule / the rule it replaced (s over L with the textbook k, undershoot ignored, up to s + Q) /
+// the whole extra week taken as forecast demand (s over L + 1 weeks, textbook k, whole lots):
+//   lot (weeks)  model       L  cycle 95%: new / old / L + 1     fill 98%: new / old / L + 1
+//   1            AR(1)       2  94.90% / 41.46% / 99.34%      98.15% / 76.08% / 99.74%
+//   1            AR(1)       6  95.04% / 73.35% / 98.45%      98.28% / 89.84% / 99.48%
+//   1            MA(1)       2  95.06% / 41.22% / 99.76%      98.03% / 67.59% / 99.87%
+//   1            MA(1)       6  95.07% / 41.98% / 99.67%      98.05% / 69.34% / 99.85%
+//   1            ARMA(1,1)   2  94.77% / 46.04% / 99.06%      98.16% / 78.73% / 99.68%
+//   1            ARMA(1,1)   6  95.11% / 80.12% / 97.78%      98.38% / 92.58% / 99.34%
+//   2            AR(1)       2  94.88% / 37.14% / 99.40%      97.96% / 83.18% / 99.71%
+//   2            AR(1)       6  95.05% / 72.59% / 98.64%      98.04% / 90.96% / 99.43%
+//   2            MA(1)       2  95.01% / 40.57% / 99.76%      97.99% / 79.14% / 99.85%
+//   2            MA(1)       6  95.00% / 41.86% / 99.68%      97.99% / 79.98% / 99.83%
+//   2            ARMA(1,1)   2  94.75% / 40.95% / 99.19%      97.93% / 83.57% / 99.63%
+//   2            ARMA(1,1)   6  95.09% / 78.79% / 98.11%      98.04% / 92.53% / 99.25%
+//   4            AR(1)       2  94.98% / 32.79% / 99.40%      97.98% / 88.26% / 99.66%
+//   4            AR(1)       6  95.00% / 71.66% / 98.66%      98.02% / 92.35% / 99.38%
+//   4            MA(1)       2  94.96% / 38.65% / 99.77%      97.99% / 88.44% / 99.91%
+//   4            MA(1)       6  94.88% / 40.93% / 99.68%      97.98% / 88.25% / 99.85%
+//   4            ARMA(1,1)   2  94.77% / 38.93% / 99.19%      97.95% / 88.30% / 99.58%
+//   4            ARMA(1,1)   6  95.07% / 78.75% / 98.11%      98.03% / 93.45% / 99.18%
+//   8            AR(1)       2  94.98% / 32.04% / 99.48%      98.04% / 93.63% / 99.73%
+//   8            AR(1)       6  94.92% / 72.17% / 98.59%      98.00% / 94.05% / 99.27%
+//   8            MA(1)       2  94.85% / 34.55% / 99.80%      98.34% / 93.94% / 99.95%
+//   8            MA(1)       6  94.92% / 38.22% / 99.65%      98.28% / 93.86% / 99.92%
+//   8            ARMA(1,1)   2  94.69% / 39.17% / 99.18%      97.95% / 93.40% / 99.52%
+//   8            ARMA(1,1)   6  95.07% / 78.95% / 98.22%      98.01% / 94.55% / 99.11%
 describe('policy check by simulation (continuous review checked at each weekly run)', () => {
-  for (const lotWeeks of [2, 4, 8]) {
+  for (const lotWeeks of [1, 2, 4, 8]) {
     for (const m of MODELS) {
       for (const L of [2, 6]) {
         it(`lot ${lotWeeks} weeks, ${m.name}, L = ${L}: 95% cycle → 94–96%, 98% fill → 97.5–98.5%`, () => {
@@ -149,9 +156,12 @@ describe('policy check by simulation (continuous review checked at each weekly r
           expect(fill.fillRate).toBeGreaterThanOrEqual(0.975);
           expect(fill.fillRate).toBeLessThanOrEqual(0.985);
           expect(cycle.negativeDemandWeeks).toBe(0);
-          // one cycle per order: the lot lasts lotWeeks weeks of mean demand
-          expect(cycle.cycles / (cycle.weeks / lotWeeks)).toBeGreaterThan(0.99);
-          expect(cycle.cycles / (cycle.weeks / lotWeeks)).toBeLessThan(1.01);
+          // one cycle per order: a lot of 2 weeks or more lasts lotWeeks weeks of mean demand (a
+          // one-week lot sometimes goes out as two lots, so fewer orders than weeks)
+          if (lotWeeks >= 2) {
+            expect(cycle.cycles / (cycle.weeks / lotWeeks)).toBeGreaterThan(0.99);
+            expect(cycle.cycles / (cycle.weeks / lotWeeks)).toBeLessThan(1.01);
+          }
           // The rule it replaced (s over L, undershoot ignored) falls far short on the same demand.
           const old = simulatePolicy({
             ...base,
