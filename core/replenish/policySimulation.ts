@@ -46,7 +46,7 @@ export interface PolicySimulationInput {
   years: number;
   seed: number;
   rule?: 'sum-variance' | 'sqrt-weeks' | 'lead-time-only' | 'lead-time-plus-week';
-  /** Continuous review lot; default one week of mean demand. */
+  /** Continuous review lot; default one week of mean demand (at least the MOQ, whole case packs). */
   lotSize?: number;
   casePack?: number;
   moq?: number;
@@ -94,7 +94,8 @@ export function simulatePolicy(input: PolicySimulationInput): PolicySimulationRe
   const n = warm + weeks;
   const pack = input.casePack ?? 1;
   const moq = input.moq ?? 0;
-  const lot = input.lotSize ?? Math.max(mu, pack);
+  // default lot as on the order line: one week of mean demand, at least the MOQ and one pack, in whole packs
+  const lot = input.lotSize ?? Math.ceil(Math.max(mu, moq, pack) / pack - 1e-9) * pack;
 
   const psi = psiWeights(model.ar, model.ma, Math.max(T, 1) + 1);
   const sd =
