@@ -11,7 +11,7 @@
  * small integer (item index × 65536 + week index).
  */
 import { formatIsoDate, weekStartOf } from '../../core/series/calendar';
-import type { DemandWriter, StoredWeek } from '../store/demand';
+import type { DemandWriter } from '../store/demand';
 import type { RowContext } from './context';
 import { parseFlag } from './numbers';
 
@@ -304,19 +304,21 @@ export class SalesCollector {
       const put = (week: number, qty: number | null, out: boolean) => {
         let ws = isoOf.get(week);
         if (ws === undefined) isoOf.set(week, (ws = formatIsoDate(week)));
-        let prev: StoredWeek | undefined;
+        let prev = -1;
         if (existing) {
-          while (cursor < existing.length && existing[cursor][0] < ws) cursor++;
-          if (cursor < existing.length && existing[cursor][0] === ws) prev = existing[cursor];
+          const weeks = existing.weeks;
+          while (cursor < weeks.length && weeks[cursor] < ws) cursor++;
+          if (cursor < weeks.length && weeks[cursor] === ws) prev = cursor;
         }
-        if (prev) {
+        if (prev >= 0) {
           stats.replaced++;
-          const prevOut = prev[2] === 1;
-          if (prev[1] !== qty || prevOut !== out) {
+          const prevQty = existing!.qty[prev];
+          const prevOut = existing!.stockout[prev] === 1;
+          if (prevQty !== qty || prevOut !== out) {
             stats.changed++;
             if (stats.changes.length < 200) {
               stats.changes.push(
-                `${sku} ${ws}: ${prev[1] ?? 'empty'}${prevOut ? ' (stockout)' : ''} → ${qty ?? 'empty'}${out ? ' (stockout)' : ''}`,
+                `${sku} ${ws}: ${prevQty ?? 'empty'}${prevOut ? ' (stockout)' : ''} → ${qty ?? 'empty'}${out ? ' (stockout)' : ''}`,
               );
             }
           }
@@ -327,10 +329,11 @@ export class SalesCollector {
       // item new to the store starts at its first line.
       let nextWeek = this.weekDay[order[i]];
       if (this.dated && existing) {
-        if (existing.length > 0 && existing[0][0] < fileFirstWeekIso) nextWeek = fileFirstWeek;
+        const stored = existing.weeks;
+        if (stored.length > 0 && stored[0] < fileFirstWeekIso) nextWeek = fileFirstWeek;
         // Every week from here to the file's last week is written below, so the stored ones are
         // cleared first: plain inserts are about twice as fast as resolving a conflict per row.
-        if (existing.length > 0) writer.clearRange(itemId, formatIsoDate(nextWeek), formatIsoDate(lastWeek));
+        if (stored.length > 0) writer.clearRange(itemId, formatIsoDate(nextWeek), formatIsoDate(lastWeek));
       }
       while (i < this.n && Math.floor(keys[order[i]] / 65536) === skuIdx) {
         const s = order[i];
@@ -355,9 +358,9 @@ export class SalesCollector {
     if (this.dated && this.n > 0) {
       for (const [sku, itemId] of activeKnown) {
         if (this.skuIndex.has(sku)) continue;
-        const stored = writer.existing(itemId);
-        if (stored.length === 0 || stored[0][0] >= fileFirstWeekIso) continue;
-        const existing = new Set(stored.map((r) => r[0]));
+        const stored = writer.existing(itemId).weeks;
+        if (stored.length === 0 || stored[0] >= fileFirstWeekIso) continue;
+        const existing = new Set(stored);
         let filled = false;
         for (let w = fileFirstWeek; w <= lastWeek; w += 7) {
           const ws = formatIsoDate(w);

@@ -212,24 +212,54 @@ export function getAllWeeklyHistories(store: Store, options: HistoryOptions = {}
  * inserts themselves on a re-import.
  */
 export interface DemandWriter {
-  /** An item's stored weeks in week order: [week start, qty, stockout 0/1]. */
-  existing(itemId: number): StoredWeek[];
+  /** An item's stored weeks, in week order. */
+  existing(itemId: number): StoredWeeks;
   upsert(itemId: number, weekStart: string, qty: number | null, stockout: boolean, batchId: number): void;
   /** Delete an item's weeks from `from` to `to` (inclusive week starts), before rewriting all of them. */
   clearRange(itemId: number, from: string, to: string): void;
   flush(): void;
 }
 
-export type StoredWeek = readonly [weekStart: string, qty: number | null, stockout: number];
+/** An item's stored weeks as parallel arrays in week order (stockout: 1 = marked). */
+export interface StoredWeeks {
+  weeks: string[];
+  qty: (number | null)[];
+  stockout: Uint8Array;
+}
 
 const BATCH_ROWS = 250;
 const UPSERT_TAIL =
   ' ON CONFLICT (item_id, week_start) DO UPDATE SET qty = excluded.qty, stockout = excluded.stockout, batch_id = excluded.batch_id';
 
 export function demandWriter(store: Store): DemandWriter {
+  // One row per item (SQLite builds the lists), about half the cost of one row per week. The
+  // aggregate's order is not guaranteed, so it is checked and the weeks sorted when needed.
   const select = store.db
-    .prepare('SELECT week_start, qty, stockout FROM weekly_demand WHERE item_id = ? ORDER BY week_start')
+    .prepare(
+      "SELECT group_concat(week_start), json_group_array(qty), group_concat(stockout, '') FROM weekly_demand WHERE item_id = ?",
+    )
     .raw();
+  const read = (itemId: number): StoredWeeks => {
+    const [weeksText, qtyJson, marks] = select.get(itemId) as [string | null, string, string | null];
+    if (weeksText === null || marks === null) return { weeks: [], qty: [], stockout: new Uint8Array(0) };
+    const weeks = weeksText.split(',');
+    const qty = JSON.parse(qtyJson) as (number | null)[];
+    const stockout = new Uint8Array(weeks.length);
+    let sorted = true;
+    for (let k = 0; k < weeks.length; k++) {
+      stockout[k] = marks.charCodeAt(k) === 49 ? 1 : 0;
+      if (k > 0 && weeks[k - 1] >= weeks[k]) sorted = false;
+    }
+    if (sorted) return { weeks, qty, stockout };
+    const order = weeks
+      .map((_, k) => k)
+      .sort((a, b) => (weeks[a] < weeks[b] ? -1 : weeks[a] > weeks[b] ? 1 : 0));
+    return {
+      weeks: order.map((k) => weeks[k]),
+      qty: order.map((k) => qty[k]),
+      stockout: Uint8Array.from(order, (k) => stockout[k]),
+    };
+  };
   const clear = store.db.prepare(
     'DELETE FROM weekly_demand WHERE item_id = ? AND week_start BETWEEN ? AND ?',
   );
@@ -255,7 +285,7 @@ export function demandWriter(store: Store): DemandWriter {
   return {
     existing(itemId) {
       if (pendingItems.has(itemId)) flush();
-      return select.all(itemId) as StoredWeek[];
+      return read(itemId);
     },
     upsert(itemId, weekStart, qty, stockout, batchId) {
       pending.push(itemId, weekStart, qty, stockout ? 1 : 0, batchId);
