@@ -264,7 +264,15 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   }
   for (let t = 0; t < n; t++) u[t] /= scale;
 
-  const search = searchOptimum(u, xcols, p, q, opts.maxIterations ?? 200);
+  const search = searchOptimum(
+    u,
+    xcols,
+    p,
+    q,
+    opts.maxIterations ?? 200,
+    new Map(),
+    opts.effort ?? 'thorough',
+  );
   if (!search) {
     flags.push('not-converged');
     return fallbackFit(prep, opts, includeMean, flags);

@@ -12,6 +12,7 @@
  *     (1 − cz) (which leaves the likelihood unchanged, so the search starts at the lower-order
  *     optimum and moves away from it), and the best points of a Halton (1960) screening design.
  * A later start that enters the incumbent's basin (within 0.05 in u, not better) is stopped.
+ * With effort 'quick' only the first two starts (Hannan–Rissanen and zero) run.
  */
 import { bfgsMinimize } from './bfgs';
 import { hannanRissanen } from './hannanRissanen';
@@ -65,7 +66,7 @@ function withFactor(coef: number[], f: number): number[] {
   return out;
 }
 
-function basicStarts(u: Float64Array, p: number, q: number): Float64Array[] {
+function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Float64Array[] {
   const starts: Float64Array[] = [];
   const push = (ar: number[], ma: number[]): void => {
     const x = toUnconstrained(ar, ma);
@@ -85,6 +86,7 @@ function basicStarts(u: Float64Array, p: number, q: number): Float64Array[] {
   const zeroAr = new Array<number>(p).fill(0);
   const zeroMa = new Array<number>(q).fill(0);
   push(zeroAr, zeroMa);
+  if (quick) return starts;
   if (p > 0) {
     const yw = hannanRissanen(u, p, 0);
     if (yw) push(yw.ar, zeroMa);
@@ -131,6 +133,12 @@ function screenedStarts(objective: (x: Float64Array) => number, m: number): Floa
   return scored.slice(0, SCREEN_KEEP).map((s) => s.x);
 }
 
+/**
+ * 'thorough' runs every start above; 'quick' only the Hannan–Rissanen and zero starts (for the many
+ * candidates of an order search, where only the winner needs the thorough search).
+ */
+export type SearchEffort = 'thorough' | 'quick';
+
 export function searchOptimum(
   u: Float64Array,
   xcols: Float64Array[],
@@ -138,10 +146,11 @@ export function searchOptimum(
   q: number,
   maxIterations: number,
   cache: Map<string, SearchResult | null> = new Map(),
+  effort: SearchEffort = 'thorough',
 ): SearchResult | null {
   const key = `${p},${q}`;
   if (cache.has(key)) return cache.get(key) ?? null;
-  const result = search(u, xcols, p, q, maxIterations, cache);
+  const result = search(u, xcols, p, q, maxIterations, cache, effort);
   cache.set(key, result);
   return result;
 }
@@ -153,6 +162,7 @@ function search(
   q: number,
   maxIterations: number,
   cache: Map<string, SearchResult | null>,
+  effort: SearchEffort,
 ): SearchResult | null {
   const lik = new ArmaLikelihood(u, xcols, p, q);
   const ar = new Float64Array(p);
@@ -198,8 +208,9 @@ function search(
     return true;
   };
 
-  const starts = basicStarts(u, p, q);
-  if (p + q >= NESTED_FROM && p > 0 && q > 0) {
+  const starts = basicStarts(u, p, q, effort === 'quick');
+  const thorough = effort === 'thorough';
+  if (thorough && p + q >= NESTED_FROM && p > 0 && q > 0) {
     const lower = searchOptimum(u, xcols, p - 1, q - 1, maxIterations, cache);
     if (lower) {
       for (const f of COMMON_FACTORS) {
@@ -208,7 +219,7 @@ function search(
       }
     }
   }
-  if (p + q >= NESTED_FROM) {
+  if (thorough && p + q >= NESTED_FROM) {
     // The optima of the two neighbours one order down, padded with a zero coefficient.
     for (const [pl, ql] of [
       [p - 1, q],
@@ -221,7 +232,8 @@ function search(
       if (x) distinctPush(starts, x);
     }
   }
-  if (p + q >= SCREEN_FROM) for (const x of screenedStarts(objective, p + q)) distinctPush(starts, x);
+  if (thorough && p + q >= SCREEN_FROM)
+    for (const x of screenedStarts(objective, p + q)) distinctPush(starts, x);
 
   // Stage 1: a few BFGS iterations from every start. Stage 2: the best STAGE2_KEEP distinct
   // candidates run to convergence; a candidate entering a better one's basin is stopped.

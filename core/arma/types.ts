@@ -14,6 +14,11 @@ export interface ArmaFitOptions {
   /** Regressor columns of length y.length on the undifferenced scale; differenced with y. */
   xreg?: Float64Array[];
   maxIterations?: number;
+  /**
+   * 'thorough' (default): every start of the multi-start search. 'quick': only the
+   * Hannan–Rissanen and zero starts, for the many candidates of an automatic order search.
+   */
+  effort?: 'thorough' | 'quick';
 }
 
 export interface ArmaStandardErrors {

@@ -211,3 +211,21 @@ describe('lead-time demand: the SUM of the next L weeks', () => {
     expect(ratio).toBeLessThan(9);
   });
 });
+
+describe('search effort', () => {
+  it("'quick' (Hannan–Rissanen and zero starts only) spends fewer evaluations and still reaches base R’s optimum on LakeHuron", () => {
+    // Check value: our own thorough search (the default), which the reference fixtures tie to base R.
+    const y = Float64Array.from(LAKE_HURON);
+    const thorough = fitArma(y, { p: 1, d: 0, q: 1 });
+    const quick = fitArma(y, { p: 1, d: 0, q: 1, effort: 'quick' });
+    expect(quick.converged).toBe(true);
+    expect(quick.evaluations).toBeLessThan(thorough.evaluations);
+    expect(quick.loglik).toBeGreaterThan(thorough.loglik - 1e-6);
+    const sim = simulateArma({ ar: [0.5, 0.2], ma: [0.3, -0.2], sigma2: 1, mean: 5 }, 156, 21);
+    const t22 = fitArma(sim, { p: 2, d: 0, q: 2 });
+    const q22 = fitArma(sim, { p: 2, d: 0, q: 2, effort: 'quick' });
+    expect(q22.evaluations).toBeLessThan(t22.evaluations);
+    // The quick starts are a subset of the thorough ones (on this series both end at the same optimum).
+    expect(q22.loglik).toBeLessThan(t22.loglik + 1e-6);
+  });
+});
