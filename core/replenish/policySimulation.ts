@@ -174,14 +174,20 @@ export function simulatePolicy(input: PolicySimulationInput): PolicySimulationRe
       }
       const { qty } = packRound(raw, pack, moq);
       if (qty > 0) {
-        if (L === 0) net += qty;
-        else {
+        if (L === 0) {
+          // continuous review, L = 0: the cycle this order closes ends now, just before it arrives
+          if (!periodic && measuring) {
+            cycles++;
+            if (net < 0) stockouts++;
+          }
+          net += qty;
+        } else {
           arriving[slot] += qty;
           onOrder += qty;
+          // continuous review: this order's cycle ends at the end of week t + L − 1
+          if (!periodic) checks[(t + L - 1) % ring]++;
         }
         if (measuring) orders++;
-        // continuous review: this order's cycle ends at the end of week t + L − 1
-        if (!periodic) checks[(t + Math.max(L - 1, 0)) % ring]++;
       }
     }
     // 3. demand
