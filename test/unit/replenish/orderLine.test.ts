@@ -6,6 +6,7 @@ import { abcClasses, annualConsumptionValue, serviceTarget } from '../../../core
 import { economicOrderQuantity } from '../../../core/replenish/eoq';
 import { armaSumMoments } from '../../../core/replenish/intervalDemand';
 import { type OrderLineInput, planOrderLine } from '../../../core/replenish/orderLine';
+import { simulatePolicy } from '../../../core/replenish/policySimulation';
 
 const settings: OrderLineInput['settings'] = {
   unit: 'each',
@@ -151,6 +152,39 @@ describe('order line', () => {
     expect(expectedShortage(line.reorderPoint - 200, Math.sqrt(200), 100, 10)).toBeCloseTo(8, 3);
     expect(line.orderQty).toBe(0); // 400 is above s
     expect(line.explanation).toMatch(/Q\(1 − β\) = 400·0\.02/);
+  });
+
+  it('continuous review: the order line sets the same reorder point as the policy simulation checks', () => {
+    // AR(1) φ = 0.7, σ² = 100, mean 100, L = 6, lot 400: both take σ_L and the weekly drop from the
+    // model's sum variances (core/arma/leadTimeSum) and call weeklyCheckReorder, so the margin
+    // s − forecast over L must agree; the simulation shows that margin reaches the target.
+    const psi = psiWeights([0.7], [], 60);
+    for (const kind of ['cycle', 'fill'] as const) {
+      const level = kind === 'cycle' ? 0.95 : 0.98;
+      const line = planOrderLine({
+        settings: { ...settings, leadTimeWeeks: 6, reviewPeriodWeeks: 0, moq: 400 },
+        moments: armaSumMoments(psi, 100, flat(100)),
+        forecastMeans: flat(100),
+        position: { onHand: 0, onOrder: 0, backorders: 0, asOf: null },
+        service: { level, kind, source: 'item' },
+        varianceSource: 'model',
+      });
+      const sim = simulatePolicy({
+        model: { ar: [0.7], ma: [], sigma2: 100, mean: 100 },
+        leadTimeWeeks: 6,
+        reviewPeriodWeeks: 0,
+        lotSize: 400,
+        service: { kind, level },
+        years: 1,
+        seed: 1,
+      });
+      expect(line.lotSize).toBe(400);
+      expect(line.reorderPoint - line.intervalForecast).toBeCloseTo(
+        sim.expectedUndershoot + sim.safetyStock,
+        9,
+      );
+      expect(line.safetyStock).toBeCloseTo(sim.safetyStock, 9);
+    }
   });
 
   it('fill rate: Q per review period enters G(k); a safety stock can come out as zero, never negative', () => {
