@@ -268,6 +268,39 @@ export class SalesCollector {
     return this.weekSet.size;
   }
 
+  /**
+   * Slots in key order (item index, then week). Each item's dense array already lists its slots
+   * in week order, so walking the items in index order gives the order without a sort; only
+   * items kept in the shared map are sorted.
+   */
+  private keyOrder(): Uint32Array {
+    const order = new Uint32Array(this.n);
+    const keys = this.keys;
+    let mapped: Map<number, number[]> | null = null;
+    if (this.slotOf.size > 0) {
+      mapped = new Map();
+      for (const [key, slot] of this.slotOf) {
+        const idx = Math.floor(key / 65536);
+        let list = mapped.get(idx);
+        if (!list) mapped.set(idx, (list = []));
+        list.push(slot);
+      }
+    }
+    let at = 0;
+    for (let idx = 0; idx < this.skus.length; idx++) {
+      const arr = this.dense[idx];
+      if (arr) {
+        for (let o = 0; o < arr.length; o++) if (arr[o] >= 0) order[at++] = arr[o];
+      } else if (arr === null) {
+        const list = mapped!.get(idx)!;
+        list.sort((a, b) => keys[a] - keys[b]);
+        for (const slot of list) order[at++] = slot;
+      }
+    }
+    if (at !== this.n) throw new Error(`sales collector: ${at} slots ordered, ${this.n} held`);
+    return order;
+  }
+
   /** Write every cell through the store's demand writer (inside the import's transaction). */
   write(
     ids: Map<string, number>,
@@ -276,10 +309,8 @@ export class SalesCollector {
     batchId: number,
     activeKnown: Map<string, number> = new Map(),
   ): SalesWriteStats {
-    const order = new Uint32Array(this.n);
-    for (let i = 0; i < this.n; i++) order[i] = i;
+    const order = this.keyOrder();
     const keys = this.keys;
-    order.sort((a, b) => keys[a] - keys[b]);
     const isoOf = new Map<number, string>();
     const stats: SalesWriteStats = {
       inserted: 0,
