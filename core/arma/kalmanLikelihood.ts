@@ -10,7 +10,9 @@
  * which is exactly the value base R's stats::arima(method = "ML") reports. Missing values (NaN)
  * skip the update step and count in neither n nor Σ log F (Harvey 1989, §3.4.7).
  *
- * Speed: no allocation per step; the companion structure of T makes T P Tᵀ O(r²); once the
+ * Speed: no allocation per step; on an observed week the filtered covariance has a zero first row
+ * and column (the first state element is observed without noise), so T P Tᵀ is a shift of it,
+ * O(r²) with no multiplication by φ (φ enters through the start and missing weeks); once the
  * filtered covariance has vanished (trace < 1e-8, which happens within a few dozen weeks for an
  * MA part away from the unit circle) the gain is constant (K = R, F = 1) and the filter switches
  * to the steady-state recursion until the next missing week.
@@ -143,15 +145,23 @@ export class ArmaLikelihood {
    */
   private pass(): boolean {
     this.evaluations++;
-    const { n, r, cols, phi, R, P, K, a, v } = this;
-    const nc = this.k + 1;
+    const n = this.n;
+    const r = this.r;
     const k = this.k;
+    const nc = k + 1;
+    const cols = this.cols;
+    const phi = this.phi;
+    const R = this.R;
+    const P = this.P;
+    const K = this.K;
+    const a = this.a;
+    const v = this.v;
     const sxx = this.sxx;
     const sxy = this.sxy;
     sxx.fill(0);
     sxy.fill(0);
     a.fill(0);
-    this.syy = 0;
+    let syy = 0;
     let sumLogF = 0;
     let nobs = 0;
     const w = cols[0];
@@ -160,24 +170,28 @@ export class ArmaLikelihood {
     const log = this.switchLog;
     const frozen = this.frozenLog;
     const frozenCount = this.frozenCount;
+    const Rlast = R[r - 1];
     let switches = 0;
     let fi = 0;
     let t = 0;
     while (t < n) {
-      const observed = !Number.isNaN(w[t]);
-      if (observed) {
+      if (!Number.isNaN(w[t])) {
         const F = P[0];
         if (!(F > 1e-300)) return false;
         const invF = 1 / F;
         for (let i = 0; i < r; i++) K[i] = P[i * r] * invF;
+        // a_{t+1|t} = T (a + K v): the filtered first element is the observation itself, so
+        // element i is φ_i x_t + a_{i+1} + K_{i+1} v.
         for (let c = 0; c < nc; c++) {
           const base = c * r;
-          const vc = cols[c][t] - a[base];
+          const xt = cols[c][t];
+          const vc = xt - a[base];
           v[c] = vc;
-          for (let i = 0; i < r; i++) a[base + i] += K[i] * vc;
+          for (let i = 0; i < r - 1; i++) a[base + i] = phi[i] * xt + a[base + i + 1] + K[i + 1] * vc;
+          a[base + r - 1] = phi[r - 1] * xt;
         }
         const vy = v[0];
-        this.syy += vy * vy * invF;
+        syy += vy * vy * invF;
         for (let i = 0; i < k; i++) {
           const vi = v[i + 1] * invF;
           sxy[i] += vi * vy;
@@ -185,22 +199,27 @@ export class ArmaLikelihood {
         }
         sumLogF += Math.log(F);
         nobs++;
-        // P ← P − K Kᵀ F (the gain is saved, so the symmetric writes cannot corrupt it).
+        // P_{t+1|t} = T P_{t|t} Tᵀ + R Rᵀ. The first row and column of P_{t|t} = P − K Kᵀ F vanish
+        // (the first state element is observed without noise), so T P_{t|t} Tᵀ is P_{t|t} shifted
+        // up and left by one and φ does not enter. In place: each write lands on an entry already
+        // read (upper triangle) or never read (lower triangle); the gain K is saved.
         let trace = 0;
-        for (let i = 0; i < r; i++) {
+        for (let i = 1; i < r; i++) {
           const kiF = K[i] * F;
-          for (let j = i; j < r; j++) {
-            const val = P[i * r + j] - kiF * K[j];
-            P[i * r + j] = val;
-            if (j !== i) P[j * r + i] = val;
+          const Ri = R[i - 1];
+          const pf = P[i * r + i] - kiF * K[i];
+          trace += pf;
+          P[(i - 1) * r + i - 1] = pf + Ri * Ri;
+          for (let j = i + 1; j < r; j++) {
+            const val = P[i * r + j] - kiF * K[j] + Ri * R[j - 1];
+            P[(i - 1) * r + j - 1] = val;
+            P[(j - 1) * r + i - 1] = val;
           }
-          trace += P[i * r + i];
         }
-        for (let c = 0; c < nc; c++) {
-          const base = c * r;
-          const a0 = a[base];
-          for (let i = 0; i < r - 1; i++) a[base + i] = phi[i] * a0 + a[base + i + 1];
-          a[base + r - 1] = phi[r - 1] * a0;
+        for (let i = 0; i < r; i++) {
+          const val = R[i] * Rlast;
+          P[i * r + r - 1] = val;
+          P[(r - 1) * r + i] = val;
         }
         t++;
         let enter = false;
@@ -212,16 +231,16 @@ export class ArmaLikelihood {
         if (enter) {
           // P_{t|t} ≈ 0 from here: gain R, F = 1, until the next missing week.
           log[switches++] = t;
+          this.syy = syy;
           const t1 = nc === 2 ? this.steadyMean(t) : this.steadyGeneric(t);
+          syy = this.syy;
           nobs += t1 - t;
           t = t1;
           if (t < n) {
             // A missing week ends the steady state: P_{t|t−1} = R Rᵀ there.
             for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * r + j] = R[i] * R[j];
           }
-          continue;
         }
-        this.predictCovariance();
       } else {
         for (let c = 0; c < nc; c++) {
           const base = c * r;
@@ -233,6 +252,7 @@ export class ArmaLikelihood {
         t++;
       }
     }
+    this.syy = syy;
     this.sumLogF = sumLogF;
     this.nobs = nobs;
     this.switchCount = switches;

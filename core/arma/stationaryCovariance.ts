@@ -13,11 +13,15 @@ export interface LyapunovWorkspace {
   /** m × m system, m = r(r+1)/2. */
   a: Float64Array;
   b: Float64Array;
+  /** Packed index of (i, j), row-major r × r (symmetric). */
+  index: Int32Array;
 }
 
 export function createLyapunovWorkspace(r: number): LyapunovWorkspace {
   const m = (r * (r + 1)) / 2;
-  return { r, a: new Float64Array(m * m), b: new Float64Array(m) };
+  const index = new Int32Array(r * r);
+  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) index[i * r + j] = idx(i, j, r);
+  return { r, a: new Float64Array(m * m), b: new Float64Array(m), index };
 }
 
 function idx(i: number, j: number, r: number): number {
@@ -57,17 +61,19 @@ export function stationaryCovariance(
   const m = (r * (r + 1)) / 2;
   const A = ws.a;
   const b = ws.b;
+  const ix = ws.index;
   A.fill(0);
   for (let i = 0; i < r; i++) {
     for (let j = i; j < r; j++) {
-      const row = idx(i, j, r) * m;
-      A[row + idx(i, j, r)] += 1;
+      const e = ix[i * r + j];
+      const row = e * m;
+      A[row + e] += 1;
       // (T P Tᵀ)_ij = φ_i φ_j P_00 + φ_i P_{0,j+1} + φ_j P_{i+1,0} + P_{i+1,j+1}
       A[row] -= phi[i] * phi[j];
-      if (j + 1 < r) A[row + idx(0, j + 1, r)] -= phi[i];
-      if (i + 1 < r) A[row + idx(i + 1, 0, r)] -= phi[j];
-      if (i + 1 < r && j + 1 < r) A[row + idx(i + 1, j + 1, r)] -= 1;
-      b[idx(i, j, r)] = R[i] * R[j];
+      if (j + 1 < r) A[row + ix[j + 1]] -= phi[i];
+      if (i + 1 < r) A[row + ix[(i + 1) * r]] -= phi[j];
+      if (i + 1 < r && j + 1 < r) A[row + ix[(i + 1) * r + j + 1]] -= 1;
+      b[e] = R[i] * R[j];
     }
   }
   // Gaussian elimination with partial pivoting.
@@ -107,7 +113,7 @@ export function stationaryCovariance(
   }
   for (let i = 0; i < r; i++) {
     for (let j = i; j < r; j++) {
-      const v = b[idx(i, j, r)];
+      const v = b[ix[i * r + j]];
       P[i * r + j] = v;
       P[j * r + i] = v;
     }
