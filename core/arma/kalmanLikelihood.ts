@@ -53,6 +53,8 @@ export class ArmaLikelihood {
   sigma2 = Number.NaN;
   /** Likelihood evaluations since construction. */
   evaluations = 0;
+  /** True when the series has a missing week (the specialised pass handles none). */
+  private readonly hasMissing: boolean;
 
   constructor(w: Float64Array, xcols: Float64Array[], p: number, q: number) {
     this.n = w.length;
@@ -74,6 +76,9 @@ export class ArmaLikelihood {
     this.sxy = new Float64Array(this.k);
     this.beta = new Float64Array(this.k);
     this.chol = new Float64Array(this.k * this.k);
+    let missing = false;
+    for (let t = 0; t < w.length; t++) if (Number.isNaN(w[t])) missing = true;
+    this.hasMissing = missing;
   }
 
   /** Loads φ and θ (ma-minus) and the stationary initial covariance; false if not stationary. */
@@ -145,6 +150,7 @@ export class ArmaLikelihood {
    */
   private pass(): boolean {
     this.evaluations++;
+    if (this.k === 1 && this.r <= 3 && !this.hasMissing) return this.passMean3();
     const n = this.n;
     const r = this.r;
     const k = this.k;
@@ -259,8 +265,119 @@ export class ArmaLikelihood {
     return true;
   }
 
+  /**
+   * pass() for the commonest case — one regressor (the mean), r ≤ 3 (p ≤ 3, q ≤ 2), no missing
+   * week — with the state and the upper triangle of P in local variables. The same recursions as
+   * pass(); entries past r stay zero because their φ and R are zero.
+   */
+  private passMean3(): boolean {
+    const n = this.n;
+    const r = this.r;
+    const phi = this.phi;
+    const R = this.R;
+    const P = this.P;
+    const w = this.cols[0];
+    const x = this.cols[1];
+    const f0 = phi[0];
+    const f1 = r > 1 ? phi[1] : 0;
+    const f2 = r > 2 ? phi[2] : 0;
+    const r1 = r > 1 ? R[1] : 0;
+    const r2 = r > 2 ? R[2] : 0;
+    let p00 = P[0];
+    let p01 = r > 1 ? P[1] : 0;
+    let p02 = r > 2 ? P[2] : 0;
+    let p11 = r > 1 ? P[r + 1] : 0;
+    let p12 = r > 2 ? P[r + 2] : 0;
+    let p22 = r > 2 ? P[2 * r + 2] : 0;
+    let a0 = 0;
+    let a1 = 0;
+    let a2 = 0;
+    let b0 = 0;
+    let b1 = 0;
+    let b2 = 0;
+    let syy = 0;
+    let sxy = 0;
+    let sxx = 0;
+    let sumLogF = 0;
+    const mode = this.switchMode;
+    if (this.switchLog.length < n + 1) this.switchLog = new Int32Array(n + 1);
+    const frozen = this.frozenLog;
+    const frozenCount = this.frozenCount;
+    let switches = 0;
+    let fi = 0;
+    let t = 0;
+    while (t < n) {
+      const F = p00;
+      if (!(F > 1e-300)) return false;
+      const invF = 1 / F;
+      const k1 = p01 * invF;
+      const k2 = p02 * invF;
+      const wt = w[t];
+      const xt = x[t];
+      const vy = wt - a0;
+      const vx = xt - b0;
+      a0 = f0 * wt + a1 + k1 * vy;
+      a1 = f1 * wt + a2 + k2 * vy;
+      a2 = f2 * wt;
+      b0 = f0 * xt + b1 + k1 * vx;
+      b1 = f1 * xt + b2 + k2 * vx;
+      b2 = f2 * xt;
+      syy += vy * vy * invF;
+      sxy += vx * vy * invF;
+      sxx += vx * vx * invF;
+      sumLogF += Math.log(F);
+      // P_{t|t} rows 1.., then the shift: P_{t+1|t}(i, j) = P_{t|t}(i+1, j+1) + R_i R_j.
+      const pf11 = p11 - k1 * p01;
+      const pf12 = p12 - k1 * p02;
+      const pf22 = p22 - k2 * p02;
+      p00 = pf11 + 1;
+      p01 = pf12 + r1;
+      p02 = r2;
+      p11 = pf22 + r1 * r1;
+      p12 = r1 * r2;
+      p22 = r2 * r2;
+      t++;
+      let enter = false;
+      if (mode === 0) enter = pf11 + pf22 < STEADY_TOL;
+      else if (mode === 1) {
+        while (fi < frozenCount && frozen[fi] < t) fi++;
+        enter = fi < frozenCount && frozen[fi] === t;
+      }
+      if (enter && t < n) {
+        this.switchLog[switches++] = t;
+        const a = this.a;
+        a[0] = a0;
+        a[r] = b0;
+        if (r > 1) {
+          a[1] = a1;
+          a[r + 1] = b1;
+        }
+        if (r > 2) {
+          a[2] = a2;
+          a[r + 2] = b2;
+        }
+        this.syy = 0;
+        this.sxy[0] = 0;
+        this.sxx[0] = 0;
+        t = this.steadyMean3(t);
+        syy += this.syy;
+        sxy += this.sxy[0];
+        sxx += this.sxx[0];
+        break;
+      }
+    }
+    this.syy = syy;
+    this.sxy[0] = sxy;
+    this.sxx[0] = sxx;
+    this.sumLogF = sumLogF;
+    this.nobs = n;
+    this.switchCount = switches;
+    return true;
+  }
+
   /** Steady-state recursion a ← T(a + R v) for the series and one regressor, from step t0. */
   private steadyMean(t0: number): number {
+    if (this.r <= 3) return this.steadyMean3(t0);
     const { n, r, phi, R, a, cols } = this;
     const w = cols[0];
     const x = cols[1];
@@ -283,6 +400,61 @@ export class ArmaLikelihood {
       syy += vy * vy;
       sxy += vx * vy;
       sxx += vx * vx;
+    }
+    this.syy += syy;
+    this.sxy[0] += sxy;
+    this.sxx[0] += sxx;
+    return t;
+  }
+
+  /**
+   * steadyMean for r ≤ 3 with the state in local variables (kept in registers): the states past r
+   * stay zero because their φ and R are zero.
+   */
+  private steadyMean3(t0: number): number {
+    const { n, r, phi, R, a, cols } = this;
+    const w = cols[0];
+    const x = cols[1];
+    const f0 = phi[0];
+    const f1 = r > 1 ? phi[1] : 0;
+    const f2 = r > 2 ? phi[2] : 0;
+    const r1 = r > 1 ? R[1] : 0;
+    const r2 = r > 2 ? R[2] : 0;
+    let a0 = a[0];
+    let a1 = r > 1 ? a[1] : 0;
+    let a2 = r > 2 ? a[2] : 0;
+    let b0 = a[r];
+    let b1 = r > 1 ? a[r + 1] : 0;
+    let b2 = r > 2 ? a[r + 2] : 0;
+    let syy = 0;
+    let sxy = 0;
+    let sxx = 0;
+    let t = t0;
+    for (; t < n; t++) {
+      const wt = w[t];
+      if (Number.isNaN(wt)) break;
+      const xt = x[t];
+      const vy = wt - a0;
+      const vx = xt - b0;
+      a0 = f0 * wt + a1 + r1 * vy;
+      a1 = f1 * wt + a2 + r2 * vy;
+      a2 = f2 * wt;
+      b0 = f0 * xt + b1 + r1 * vx;
+      b1 = f1 * xt + b2 + r2 * vx;
+      b2 = f2 * xt;
+      syy += vy * vy;
+      sxy += vx * vy;
+      sxx += vx * vx;
+    }
+    a[0] = a0;
+    a[r] = b0;
+    if (r > 1) {
+      a[1] = a1;
+      a[r + 1] = b1;
+    }
+    if (r > 2) {
+      a[2] = a2;
+      a[r + 2] = b2;
     }
     this.syy += syy;
     this.sxy[0] += sxy;

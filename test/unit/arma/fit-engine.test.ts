@@ -114,6 +114,46 @@ describe('the Kalman filter', () => {
   });
 });
 
+describe('the specialised filter pass (mean, r ≤ 3, no missing week)', () => {
+  it('agrees with the full filter of detailed() for every order it serves', () => {
+    // Check value: the exact likelihood from detailed(), the dense textbook recursion
+    // P ← T(P − K Kᵀ F)Tᵀ + R Rᵀ (Harvey 1989, §3.2) with no shortcut.
+    const y = simulateArma({ ar: [0.6], ma: [0.4], sigma2: 1, mean: 3 }, 156, 7);
+    const ones = new Float64Array(y.length).fill(1);
+    const models: [number[], number[]][] = [
+      [[0.6], []],
+      [[], [0.5]],
+      [[0.6], [0.4]],
+      [
+        [0.5, 0.2],
+        [0.3, -0.2],
+      ],
+      [
+        [0.4, 0.2, -0.1],
+        [0.5, 0.2],
+      ],
+      [[0.3, 0.1, 0.1], []],
+      [[], [0.95, -0.05]],
+    ];
+    for (const [ar, ma] of models) {
+      const lik = new ArmaLikelihood(y, [ones], ar.length, ma.length);
+      const fast = lik.loglikFromObjective(lik.profile(ar, ma));
+      const det = lik.detailed(ar, ma, Array.from(lik.beta))!;
+      let ss = 0;
+      let logF = 0;
+      for (let t = 0; t < y.length; t++) {
+        ss += det.innovations[t] ** 2 / det.variances[t];
+        logF += Math.log(det.variances[t]);
+      }
+      const n = y.length;
+      const exact = -0.5 * (n * Math.log((2 * Math.PI * ss) / n) + logF + n);
+      expect(Math.abs(fast - exact)).toBeLessThan(1e-7);
+      lik.disableSteadyState();
+      expect(Math.abs(lik.loglikFromObjective(lik.profile(ar, ma)) - exact)).toBeLessThan(1e-9);
+    }
+  });
+});
+
 describe('forecasts', () => {
   it('d = 0 long series: se_h = σ √Σ_{j<h} ψ_j² (Box, Jenkins & Reinsel ch. 5)', () => {
     const y = simulateArma({ ar: [0.6], ma: [0.3], sigma2: 2, mean: 100 }, 400, 31);
