@@ -1,6 +1,6 @@
 /**
  * A weekly history as it travels to a worker: the first week's start and the quantities. The run's
- * histories are contiguous weekly series by construction (getRunHistories, gap filling), so the
+ * histories are contiguous weekly series by construction (getWeeklyHistoriesById, gap filling), so the
  * week-start strings are implied and need not be copied for every item; the worker spells them out
  * again with the shared calendar (core/series), one cached array per first week and length.
  */
