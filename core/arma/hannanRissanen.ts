@@ -26,19 +26,32 @@ export function yuleWalker(gamma: Float64Array, m: number): Float64Array {
   return phi;
 }
 
-export function hannanRissanen(u: Float64Array, p: number, q: number): { ar: number[]; ma: number[] } | null {
+/** The first stage (series with missing values as zero, long-AR innovations) for one order m. */
+export interface HannanStage1 {
+  m: number;
+  x: Float64Array;
+  e: Float64Array;
+}
+
+function longArOrder(n: number, p: number, q: number): number {
+  return Math.max(p + q + 1, Math.min(Math.floor(n / 4), Math.ceil(10 * Math.log10(n)), 30));
+}
+
+function zeroFilled(u: Float64Array): Float64Array {
   const n = u.length;
   const x = new Float64Array(n);
   for (let t = 0; t < n; t++) x[t] = Number.isNaN(u[t]) ? 0 : u[t];
-  const m = Math.max(p + q + 1, Math.min(Math.floor(n / 4), Math.ceil(10 * Math.log10(n)), 30));
-  const gamma = sampleAutocovariance(x, Math.min(n - 1, q === 0 ? p : m), false);
-  if (!(gamma[0] > 0)) return null;
-  if (q === 0) {
-    // Pure AR: Yule–Walker directly (the second stage would only repeat the regression).
-    const phi = yuleWalker(gamma, p);
-    return { ar: Array.from(phi), ma: [] };
-  }
+  return x;
+}
+
+/** Stage 1 for ARMA(p, q): null when the series is too short or has no variance. */
+export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage1 | null {
+  const n = u.length;
+  const x = zeroFilled(u);
+  const m = longArOrder(n, p, q);
   if (m >= n - 1) return null;
+  const gamma = sampleAutocovariance(x, Math.min(n - 1, m), false);
+  if (!(gamma[0] > 0)) return null;
   const longAr = yuleWalker(gamma, m);
   const e = new Float64Array(n);
   for (let t = m; t < n; t++) {
@@ -46,6 +59,32 @@ export function hannanRissanen(u: Float64Array, p: number, q: number): { ar: num
     for (let j = 0; j < m; j++) s -= longAr[j] * x[t - 1 - j];
     e[t] = s;
   }
+  return { m, x, e };
+}
+
+/**
+ * Hannan–Rissanen estimates of ARMA(p, q); `stage1` (from hannanStage1 on the same u) is reused
+ * when its long-AR order is the one this order needs, so several orders share the first stage.
+ */
+export function hannanRissanen(
+  u: Float64Array,
+  p: number,
+  q: number,
+  stage1: HannanStage1 | null = null,
+): { ar: number[]; ma: number[] } | null {
+  const n = u.length;
+  if (q === 0) {
+    // Pure AR: Yule–Walker directly (the second stage would only repeat the regression).
+    const x = zeroFilled(u);
+    const gamma = sampleAutocovariance(x, Math.min(n - 1, p), false);
+    if (!(gamma[0] > 0)) return null;
+    const phi = yuleWalker(gamma, p);
+    return { ar: Array.from(phi), ma: [] };
+  }
+  const m = longArOrder(n, p, q);
+  const st = stage1 && stage1.m === m ? stage1 : hannanStage1(u, p, q);
+  if (!st) return null;
+  const { x, e } = st;
   const k = p + q;
   const start = m + q;
   if (n - start <= k + 1) return null;

@@ -15,7 +15,7 @@
  * With effort 'quick' only the first two starts (Hannan–Rissanen and zero) run.
  */
 import { bfgsMinimize } from './bfgs';
-import { hannanRissanen } from './hannanRissanen';
+import { hannanRissanen, hannanStage1 } from './hannanRissanen';
 import { ArmaLikelihood } from './kalmanLikelihood';
 import { coefficientsToUnconstrained, unconstrainedToCoefficients } from './partialAutocorrelations';
 
@@ -72,7 +72,9 @@ function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Flo
     const x = toUnconstrained(ar, ma);
     if (x) distinctPush(starts, x);
   };
-  const hr = hannanRissanen(u, p, q);
+  // One first stage (long autoregression) for the ARMA(p,q) and MA(q) starts.
+  const stage1 = q > 0 ? hannanStage1(u, p, q) : null;
+  const hr = hannanRissanen(u, p, q, stage1);
   if (hr) {
     let ar = hr.ar;
     let ma = hr.ma;
@@ -95,7 +97,7 @@ function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Flo
     if (p + q > 2) push(near, zeroMa);
   }
   if (q > 0) {
-    const hm = hannanRissanen(u, 0, q);
+    const hm = hannanRissanen(u, 0, q, stage1);
     if (hm) push(zeroAr, hm.ma);
   }
   return starts;
