@@ -299,6 +299,10 @@ export class ArmaLikelihood {
     let sxy = 0;
     let sxx = 0;
     let sumLogF = 0;
+    // Σ log F as the log of a running product, flushed before it can overflow or underflow
+    // (F ≥ 1 here in exact arithmetic: the innovation variance includes σ² = 1): one log per
+    // block of steps instead of one per step.
+    let prodF = 1;
     const mode = this.switchMode;
     if (this.switchLog.length < n + 1) this.switchLog = new Int32Array(n + 1);
     const frozen = this.frozenLog;
@@ -325,7 +329,11 @@ export class ArmaLikelihood {
       syy += vy * vy * invF;
       sxy += vx * vy * invF;
       sxx += vx * vx * invF;
-      sumLogF += Math.log(F);
+      prodF *= F;
+      if (prodF > 1e150 || prodF < 1e-150) {
+        sumLogF += Math.log(prodF);
+        prodF = 1;
+      }
       // P_{t|t} rows 1.., then the shift: P_{t+1|t}(i, j) = P_{t|t}(i+1, j+1) + R_i R_j.
       const pf11 = p11 - k1 * p01;
       const pf12 = p12 - k1 * p02;
@@ -369,7 +377,7 @@ export class ArmaLikelihood {
     this.syy = syy;
     this.sxy[0] = sxy;
     this.sxx[0] = sxx;
-    this.sumLogF = sumLogF;
+    this.sumLogF = sumLogF + Math.log(prodF);
     this.nobs = n;
     this.switchCount = switches;
     return true;
