@@ -53,6 +53,9 @@ export class ArmaLikelihood {
   sigma2 = Number.NaN;
   /** Likelihood evaluations since construction. */
   evaluations = 0;
+  /** Σ v_x v_y and Σ v_x² of the last steadyMean3 call (the mean column's share). */
+  private steadyCross = 0;
+  private steadyX = 0;
   /** True when the series has a missing week (the specialised pass handles none). */
   private readonly hasMissing: boolean;
 
@@ -150,7 +153,7 @@ export class ArmaLikelihood {
    */
   private pass(): boolean {
     this.evaluations++;
-    if (this.k === 1 && this.r <= 3 && !this.hasMissing) return this.passMean3();
+    if (this.k <= 1 && this.r <= 3 && !this.hasMissing) return this.passMean3();
     const n = this.n;
     const r = this.r;
     const k = this.k;
@@ -277,7 +280,8 @@ export class ArmaLikelihood {
     const R = this.R;
     const P = this.P;
     const w = this.cols[0];
-    const x = this.cols[1];
+    // Without a mean (k = 0) the second column is the series again; its sums are not used.
+    const x = this.k > 0 ? this.cols[1] : w;
     const f0 = phi[0];
     const f1 = r > 1 ? phi[1] : 0;
     const f2 = r > 2 ? phi[2] : 0;
@@ -365,18 +369,20 @@ export class ArmaLikelihood {
           a[r + 2] = b2;
         }
         this.syy = 0;
-        this.sxy[0] = 0;
-        this.sxx[0] = 0;
+        this.steadyCross = 0;
+        this.steadyX = 0;
         t = this.steadyMean3(t);
         syy += this.syy;
-        sxy += this.sxy[0];
-        sxx += this.sxx[0];
+        sxy += this.steadyCross;
+        sxx += this.steadyX;
         break;
       }
     }
     this.syy = syy;
-    this.sxy[0] = sxy;
-    this.sxx[0] = sxx;
+    if (this.k > 0) {
+      this.sxy[0] = sxy;
+      this.sxx[0] = sxx;
+    }
     this.sumLogF = sumLogF + Math.log(prodF);
     this.nobs = n;
     this.switchCount = switches;
@@ -385,7 +391,12 @@ export class ArmaLikelihood {
 
   /** Steady-state recursion a ← T(a + R v) for the series and one regressor, from step t0. */
   private steadyMean(t0: number): number {
-    if (this.r <= 3) return this.steadyMean3(t0);
+    if (this.r <= 3) {
+      const t1 = this.steadyMean3(t0);
+      this.sxy[0] += this.steadyCross;
+      this.sxx[0] += this.steadyX;
+      return t1;
+    }
     const { n, r, phi, R, a, cols } = this;
     const w = cols[0];
     const x = cols[1];
@@ -422,7 +433,7 @@ export class ArmaLikelihood {
   private steadyMean3(t0: number): number {
     const { n, r, phi, R, a, cols } = this;
     const w = cols[0];
-    const x = cols[1];
+    const x = this.k > 0 ? cols[1] : w;
     const f0 = phi[0];
     const f1 = r > 1 ? phi[1] : 0;
     const f2 = r > 2 ? phi[2] : 0;
@@ -465,8 +476,8 @@ export class ArmaLikelihood {
       a[r + 2] = b2;
     }
     this.syy += syy;
-    this.sxy[0] += sxy;
-    this.sxx[0] += sxx;
+    this.steadyCross = sxy;
+    this.steadyX = sxx;
     return t;
   }
 

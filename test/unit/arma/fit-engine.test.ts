@@ -114,8 +114,8 @@ describe('the Kalman filter', () => {
   });
 });
 
-describe('the specialised filter pass (mean, r ≤ 3, no missing week)', () => {
-  it('agrees with the full filter of detailed() for every order it serves', () => {
+describe('the specialised filter pass (mean or none, r ≤ 3, no missing week)', () => {
+  it('agrees with the full filter of detailed() for every order it serves, with and without a mean', () => {
     // Check value: the exact likelihood from detailed(), the dense textbook recursion
     // P ← T(P − K Kᵀ F)Tᵀ + R Rᵀ (Harvey 1989, §3.2) with no shortcut.
     const y = simulateArma({ ar: [0.6], ma: [0.4], sigma2: 1, mean: 3 }, 156, 7);
@@ -135,8 +135,11 @@ describe('the specialised filter pass (mean, r ≤ 3, no missing week)', () => {
       [[0.3, 0.1, 0.1], []],
       [[], [0.95, -0.05]],
     ];
-    for (const [ar, ma] of models) {
-      const lik = new ArmaLikelihood(y, [ones], ar.length, ma.length);
+    for (const [[ar, ma], xcols] of models.flatMap((m) => [
+      [m, [ones]],
+      [m, []],
+    ]) as [[number[], number[]], Float64Array[]][]) {
+      const lik = new ArmaLikelihood(y, xcols, ar.length, ma.length);
       const fast = lik.loglikFromObjective(lik.profile(ar, ma));
       const det = lik.detailed(ar, ma, Array.from(lik.beta))!;
       let ss = 0;
@@ -147,7 +150,9 @@ describe('the specialised filter pass (mean, r ≤ 3, no missing week)', () => {
       }
       const n = y.length;
       const exact = -0.5 * (n * Math.log((2 * Math.PI * ss) / n) + logF + n);
-      expect(Math.abs(fast - exact)).toBeLessThan(1e-7);
+      // The steady-state shortcut's own error (the generic pass gives the same value): below 1e-7
+      // with the mean; without it, on this uncentred series with θ near the unit circle, 3.7e-7.
+      expect(Math.abs(fast - exact)).toBeLessThan(xcols.length > 0 ? 1e-7 : 1e-6);
       lik.disableSteadyState();
       expect(Math.abs(lik.loglikFromObjective(lik.profile(ar, ma)) - exact)).toBeLessThan(1e-9);
     }
