@@ -2,36 +2,22 @@
  * Stationary covariance P of the ARMA state in the Harvey (1989, "Forecasting, structural time
  * series models and the Kalman filter", §3.3) form: α_{t+1} = T α_t + R ε_{t+1}, with T the
  * companion matrix (φ in the first column, ones on the superdiagonal), R = (1, −θ_1, …, −θ_{r−1}),
- * r = max(p, q+1), σ² = 1. P solves the discrete Lyapunov equation P = T P Tᵀ + R Rᵀ; the r(r+1)/2
- * distinct entries are found by Gaussian elimination with partial pivoting. For a pure MA the
- * solution is the finite sum P_ij = Σ_k R_{i+k} R_{j+k}.
+ * r = max(p, q+1), σ² = 1. P solves the discrete Lyapunov equation P = T P Tᵀ + R Rᵀ. Because T
+ * is a companion matrix every entry of P is linear in its first column, so only an r × r system is
+ * solved (Gaussian elimination with partial pivoting) rather than the r(r+1)/2 packed unknowns
+ * of the general equation. For a pure MA the solution is the finite sum P_ij = Σ_k R_{i+k} R_{j+k}.
  * All arrays are caller-owned workspaces so a likelihood evaluation allocates nothing.
  */
 
 export interface LyapunovWorkspace {
   r: number;
-  /** m × m system, m = r(r+1)/2. */
+  /** r × r system and right-hand side. */
   a: Float64Array;
   b: Float64Array;
-  /** Packed index of (i, j), row-major r × r (symmetric). */
-  index: Int32Array;
 }
 
 export function createLyapunovWorkspace(r: number): LyapunovWorkspace {
-  const m = (r * (r + 1)) / 2;
-  const index = new Int32Array(r * r);
-  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) index[i * r + j] = idx(i, j, r);
-  return { r, a: new Float64Array(m * m), b: new Float64Array(m), index };
-}
-
-function idx(i: number, j: number, r: number): number {
-  // Upper triangle (i ≤ j) packed row by row.
-  if (i > j) {
-    const t = i;
-    i = j;
-    j = t;
-  }
-  return i * r - (i * (i - 1)) / 2 + (j - i);
+  return { r, a: new Float64Array(r * r), b: new Float64Array(r) };
 }
 
 /**
@@ -58,30 +44,32 @@ export function stationaryCovariance(
     }
     return true;
   }
-  const m = (r * (r + 1)) / 2;
+  // Unrolling P_ij = (T P Tᵀ)_ij + R_i R_j along its diagonal (entries past r are zero):
+  //   P_ij = Σ_k [φ_{i+k} φ_{j+k} c_0 + φ_{i+k} c_{j+k+1} + φ_{j+k} c_{i+k+1} + R_{i+k} R_{j+k}],
+  // with c = P's first column, so every entry is linear in c. Taking j = 0 gives an r × r system
+  // for c (instead of the r(r+1)/2 unknowns of the packed Lyapunov system); the rest of P then
+  // follows from the bottom-right corner up.
   const A = ws.a;
   const b = ws.b;
-  const ix = ws.index;
-  A.fill(0);
   for (let i = 0; i < r; i++) {
-    for (let j = i; j < r; j++) {
-      const e = ix[i * r + j];
-      const row = e * m;
-      A[row + e] += 1;
-      // (T P Tᵀ)_ij = φ_i φ_j P_00 + φ_i P_{0,j+1} + φ_j P_{i+1,0} + P_{i+1,j+1}
-      A[row] -= phi[i] * phi[j];
-      if (j + 1 < r) A[row + ix[j + 1]] -= phi[i];
-      if (i + 1 < r) A[row + ix[(i + 1) * r]] -= phi[j];
-      if (i + 1 < r && j + 1 < r) A[row + ix[(i + 1) * r + j + 1]] -= 1;
-      b[e] = R[i] * R[j];
+    const row = i * r;
+    for (let j = 0; j < r; j++) A[row + j] = i === j ? 1 : 0;
+    let d = 0;
+    for (let k = 0; i + k < r; k++) {
+      const fik = phi[i + k];
+      d += R[i + k] * R[k];
+      A[row] -= fik * phi[k];
+      if (k + 1 < r) A[row + k + 1] -= fik;
+      if (i + k + 1 < r) A[row + i + k + 1] -= phi[k];
     }
+    b[i] = d;
   }
-  // Gaussian elimination with partial pivoting.
-  for (let c = 0; c < m; c++) {
+  // Gaussian elimination with partial pivoting on the r × r system.
+  for (let c = 0; c < r; c++) {
     let piv = c;
-    let best = Math.abs(A[c * m + c]);
-    for (let k = c + 1; k < m; k++) {
-      const v = Math.abs(A[k * m + c]);
+    let best = Math.abs(A[c * r + c]);
+    for (let k = c + 1; k < r; k++) {
+      const v = Math.abs(A[k * r + c]);
       if (v > best) {
         best = v;
         piv = k;
@@ -89,31 +77,35 @@ export function stationaryCovariance(
     }
     if (!(best > 1e-300)) return false;
     if (piv !== c) {
-      for (let j = c; j < m; j++) {
-        const t = A[c * m + j];
-        A[c * m + j] = A[piv * m + j];
-        A[piv * m + j] = t;
+      for (let j = c; j < r; j++) {
+        const t = A[c * r + j];
+        A[c * r + j] = A[piv * r + j];
+        A[piv * r + j] = t;
       }
       const t = b[c];
       b[c] = b[piv];
       b[piv] = t;
     }
-    const inv = 1 / A[c * m + c];
-    for (let k = c + 1; k < m; k++) {
-      const f = A[k * m + c] * inv;
+    const inv = 1 / A[c * r + c];
+    for (let k = c + 1; k < r; k++) {
+      const f = A[k * r + c] * inv;
       if (f === 0) continue;
-      for (let j = c + 1; j < m; j++) A[k * m + j] -= f * A[c * m + j];
+      for (let j = c + 1; j < r; j++) A[k * r + j] -= f * A[c * r + j];
       b[k] -= f * b[c];
     }
   }
-  for (let c = m - 1; c >= 0; c--) {
+  for (let c = r - 1; c >= 0; c--) {
     let s = b[c];
-    for (let j = c + 1; j < m; j++) s -= A[c * m + j] * b[j];
-    b[c] = s / A[c * m + c];
+    for (let j = c + 1; j < r; j++) s -= A[c * r + j] * b[j];
+    b[c] = s / A[c * r + c];
   }
-  for (let i = 0; i < r; i++) {
-    for (let j = i; j < r; j++) {
-      const v = b[ix[i * r + j]];
+  // b = c (P's first column). P_ij = φ_i φ_j c_0 + φ_i c_{j+1} + φ_j c_{i+1} + P_{i+1,j+1} + R_i R_j.
+  const c0 = b[0];
+  for (let i = r - 1; i >= 0; i--) {
+    for (let j = r - 1; j >= i; j--) {
+      let v = phi[i] * phi[j] * c0 + R[i] * R[j];
+      if (j + 1 < r) v += phi[i] * b[j + 1] + P[(i + 1) * r + j + 1];
+      if (i + 1 < r) v += phi[j] * b[i + 1];
       P[i * r + j] = v;
       P[j * r + i] = v;
     }
