@@ -185,6 +185,9 @@ export function chooseModel(
         q,
         includeMean: mean,
         xreg: k > 0 ? allFourier.slice(0, 2 * k) : undefined,
+        // Candidates are compared from the engine's two basic starts; the winner is refitted from
+        // every start below before it is used (see polishWinner).
+        effort: 'quick',
       });
     } catch {
       fit = null;
@@ -263,6 +266,15 @@ export function chooseModel(
     screen = { tried: false, statistic: 0, df: 0, pValue: 1 };
   }
 
+  // The winner (and any candidate that overtakes it once refitted) gets the engine's full multi-start
+  // search; a better optimum replaces the quick one in the record.
+  const polished = new Set<Entry>();
+  for (let round = 0; round < 3 && chosen?.fit && !polished.has(chosen); round++) {
+    polishWinner(series, d, chosen, allFourier);
+    polished.add(chosen);
+    chosen = pick(order);
+  }
+
   if (!chosen?.fit) {
     return fallbackChoice(series, base, tests, 'no candidate model could be fitted', recordOf(order, null));
   }
@@ -288,6 +300,28 @@ export function chooseModel(
     residuals: residualsOf(series, fitted),
     seasonalScreen: screen,
   };
+}
+
+/** Refit a candidate from every start of the engine's search; keep the refit when it is better. */
+function polishWinner(series: Float64Array, d: number, e: Entry, allFourier: Float64Array[]): void {
+  let fit: ArmaFit | null = null;
+  try {
+    fit = fitArma(series, {
+      p: e.p,
+      d,
+      q: e.q,
+      includeMean: e.mean,
+      xreg: e.k > 0 ? allFourier.slice(0, 2 * e.k) : undefined,
+      effort: 'thorough',
+    });
+  } catch {
+    return;
+  }
+  if (!e.fit || !(fit.loglik > e.fit.loglik) || !Number.isFinite(fit.aicc)) return;
+  e.fit = fit;
+  e.aicc = fit.aicc;
+  e.nparams = fit.nparams;
+  e.unsound = soundness(fit);
 }
 
 /** Why a fit may not be chosen over a sound one, or null when it is sound. */
