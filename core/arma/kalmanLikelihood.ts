@@ -56,8 +56,6 @@ export class ArmaLikelihood {
   /** Σ v_x v_y and Σ v_x² of the last steadyMean3 call (the mean column's share). */
   private steadyCross = 0;
   private steadyX = 0;
-  /** True when the series has a missing week (the specialised pass handles none). */
-  private readonly hasMissing: boolean;
 
   constructor(w: Float64Array, xcols: Float64Array[], p: number, q: number) {
     this.n = w.length;
@@ -79,9 +77,6 @@ export class ArmaLikelihood {
     this.sxy = new Float64Array(this.k);
     this.beta = new Float64Array(this.k);
     this.chol = new Float64Array(this.k * this.k);
-    let missing = false;
-    for (let t = 0; t < w.length; t++) if (Number.isNaN(w[t])) missing = true;
-    this.hasMissing = missing;
   }
 
   /** Loads φ and θ (ma-minus) and the stationary initial covariance; false if not stationary. */
@@ -153,7 +148,7 @@ export class ArmaLikelihood {
    */
   private pass(): boolean {
     this.evaluations++;
-    if (this.k <= 1 && this.r <= 3 && !this.hasMissing) return this.passMean3();
+    if (this.k <= 1 && this.r <= 3) return this.passMean3();
     const n = this.n;
     const r = this.r;
     const k = this.k;
@@ -314,13 +309,42 @@ export class ArmaLikelihood {
     let switches = 0;
     let fi = 0;
     let t = 0;
+    let nobs = 0;
     while (t < n) {
+      const wt = w[t];
+      if (Number.isNaN(wt)) {
+        // A missing week: prediction only, a ← T a and P ← T P Tᵀ + R Rᵀ (φ enters here).
+        const na0 = f0 * a0 + a1;
+        const na1 = f1 * a0 + a2;
+        a2 = f2 * a0;
+        a0 = na0;
+        a1 = na1;
+        const nb0 = f0 * b0 + b1;
+        const nb1 = f1 * b0 + b2;
+        b2 = f2 * b0;
+        b0 = nb0;
+        b1 = nb1;
+        const q00 = f0 * f0 * p00 + 2 * f0 * p01 + p11 + 1;
+        const q01 = f0 * f1 * p00 + f0 * p02 + f1 * p01 + p12 + r1;
+        const q02 = f0 * f2 * p00 + f2 * p01 + r2;
+        const q11 = f1 * f1 * p00 + 2 * f1 * p02 + p22 + r1 * r1;
+        const q12 = f1 * f2 * p00 + f2 * p02 + r1 * r2;
+        const q22 = f2 * f2 * p00 + r2 * r2;
+        p00 = q00;
+        p01 = q01;
+        p02 = q02;
+        p11 = q11;
+        p12 = q12;
+        p22 = q22;
+        t++;
+        continue;
+      }
+      nobs++;
       const F = p00;
       if (!(F > 1e-300)) return false;
       const invF = 1 / F;
       const k1 = p01 * invF;
       const k2 = p02 * invF;
-      const wt = w[t];
       const xt = x[t];
       const vy = wt - a0;
       const vx = xt - b0;
@@ -371,11 +395,27 @@ export class ArmaLikelihood {
         this.syy = 0;
         this.steadyCross = 0;
         this.steadyX = 0;
-        t = this.steadyMean3(t);
+        const t1 = this.steadyMean3(t);
         syy += this.syy;
         sxy += this.steadyCross;
         sxx += this.steadyX;
-        break;
+        nobs += t1 - t;
+        t = t1;
+        if (t < n) {
+          // A missing week ends the steady state: P_{t|t−1} = R Rᵀ there.
+          a0 = a[0];
+          b0 = a[r];
+          a1 = r > 1 ? a[1] : 0;
+          b1 = r > 1 ? a[r + 1] : 0;
+          a2 = r > 2 ? a[2] : 0;
+          b2 = r > 2 ? a[r + 2] : 0;
+          p00 = 1;
+          p01 = r1;
+          p02 = r2;
+          p11 = r1 * r1;
+          p12 = r1 * r2;
+          p22 = r2 * r2;
+        }
       }
     }
     this.syy = syy;
@@ -384,7 +424,7 @@ export class ArmaLikelihood {
       this.sxx[0] = sxx;
     }
     this.sumLogF = sumLogF + Math.log(prodF);
-    this.nobs = n;
+    this.nobs = nobs;
     this.switchCount = switches;
     return true;
   }
