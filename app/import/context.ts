@@ -83,3 +83,33 @@ export class RowContext {
     return v;
   }
 }
+
+/**
+ * The SKU of a row of a file that lists each SKU once (item master, stock): null, with the error
+ * reported, when the cell is empty or the SKU appeared on an earlier line.
+ */
+export function uniqueSku(
+  ctx: RowContext,
+  seen: Map<string, number>,
+  cells: string[],
+  line: number,
+  fileName: string,
+): string | null {
+  const sku = ctx.cell(cells, 'sku');
+  if (sku === '') {
+    ctx.report.error(line, ctx.header('sku'), null, 'the SKU is empty');
+    return null;
+  }
+  const first = seen.get(sku);
+  if (first !== undefined) {
+    ctx.report.error(
+      line,
+      ctx.header('sku'),
+      sku,
+      `appears again (first on line ${first}); ${fileName} lists each SKU once`,
+    );
+    return null;
+  }
+  seen.set(sku, line);
+  return sku;
+}

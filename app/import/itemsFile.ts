@@ -5,7 +5,7 @@
  */
 import type { ServiceKind } from '../../core/plan/types';
 import type { ItemPatch } from '../store/items';
-import type { RowContext } from './context';
+import { type RowContext, uniqueSku } from './context';
 import { parseFlag, parseNumber } from './numbers';
 
 const KIND_WORDS: Record<string, ServiceKind> = {
@@ -115,22 +115,8 @@ export class ItemsCollector {
   row(cells: string[], line: number): void {
     const ctx = this.ctx;
     const r = ctx.report;
-    const sku = ctx.cell(cells, 'sku');
-    if (sku === '') {
-      r.error(line, ctx.header('sku'), null, 'the SKU is empty');
-      return;
-    }
-    const first = this.lineOf.get(sku);
-    if (first !== undefined) {
-      r.error(
-        line,
-        ctx.header('sku'),
-        sku,
-        `appears again (first on line ${first}); an item master lists each SKU once`,
-      );
-      return;
-    }
-    this.lineOf.set(sku, line);
+    const sku = uniqueSku(ctx, this.lineOf, cells, line, 'an item master');
+    if (sku === null) return;
     const patch: ItemPatch = { sku };
     let bad = false;
     for (const f of ['description', 'supplier', 'unit'] as const) {

@@ -5,7 +5,7 @@
  */
 import type { InventoryPosition } from '../../core/plan/types';
 import { formatIsoDate } from '../../core/series/calendar';
-import type { RowContext } from './context';
+import { type RowContext, uniqueSku } from './context';
 
 export class StockCollector {
   readonly positions = new Map<string, InventoryPosition>();
@@ -16,22 +16,8 @@ export class StockCollector {
   row(cells: string[], line: number): void {
     const ctx = this.ctx;
     const r = ctx.report;
-    const sku = ctx.cell(cells, 'sku');
-    if (sku === '') {
-      r.error(line, ctx.header('sku'), null, 'the SKU is empty');
-      return;
-    }
-    const first = this.lineOf.get(sku);
-    if (first !== undefined) {
-      r.error(
-        line,
-        ctx.header('sku'),
-        sku,
-        `appears again (first on line ${first}); a stock file lists each SKU once`,
-      );
-      return;
-    }
-    this.lineOf.set(sku, line);
+    const sku = uniqueSku(ctx, this.lineOf, cells, line, 'a stock file');
+    if (sku === null) return;
     const onHand = ctx.number(cells, 'on_hand', line);
     if (onHand === null) r.error(line, ctx.header('on_hand'), null, 'the on-hand quantity is empty');
     const onOrder = ctx.number(cells, 'on_order', line, 0);
