@@ -4,10 +4,11 @@
  * A zero is deliberate: without a forecast any other number would be a guess, and an order the
  * planner did not ask for is worse than a line that asks for review.
  */
+import type { FlagCode } from '../../core/diagnose/flags';
 import type { ItemSettings, ServiceKind } from '../../core/plan/types';
 import type { ItemRunRecord } from '../store/runs';
 
-export const PLAN_FAILED = 'plan-failed';
+export const PLAN_FAILED: FlagCode = 'plan-failed';
 
 export function failedItemRecord(
   settings: Pick<ItemSettings, 'sku' | 'serviceLevel' | 'serviceKind'>,

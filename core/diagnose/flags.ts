@@ -4,30 +4,57 @@ import type { Flag } from '../plan/types';
  * The review-flag vocabulary: our own short codes, each with a sentence a planner understands (the
  * numbers behind the verdict in it) and a suggested action. Flagged items form the review queue.
  */
-export type FlagCode =
-  | 'short-history'
-  | 'too-short'
-  | 'constant'
-  | 'fallback'
-  | 'not-converged'
-  | 'near-unit-root'
-  | 'near-noninvertible'
-  | 'residual-autocorrelation'
-  | 'non-normal-residuals'
-  | 'outlier-weeks'
-  | 'level-shift'
-  | 'negative-forecast'
-  | 'intervals-too-narrow'
-  | 'loses-to-naive'
-  | 'sparse-demand'
-  | 'unsound-model'
-  | 'seasonal-terms';
+/**
+ * Every flag code Provision raises, in one list: the model checks below, and the planning-level codes
+ * raised where their facts live (core/plan: forecast bias, settings, plan errors, shelf life; app/run:
+ * an item whose planning failed outright).
+ */
+export const FLAG_CODES = [
+  'short-history',
+  'too-short',
+  'constant',
+  'fallback',
+  'not-converged',
+  'near-unit-root',
+  'near-noninvertible',
+  'residual-autocorrelation',
+  'non-normal-residuals',
+  'outlier-weeks',
+  'level-shift',
+  'negative-forecast',
+  'intervals-too-narrow',
+  'loses-to-naive',
+  'sparse-demand',
+  'unsound-model',
+  'seasonal-terms',
+  'forecast-bias',
+  'setting-replaced',
+  'history-mismatch',
+  'plan-error',
+  'shelf-life-below-moq',
+  'diagnostics-failed',
+  'plan-failed',
+] as const;
+
+export type FlagCode = (typeof FLAG_CODES)[number];
+
+/** The codes whose sentence and action makeFlag writes; the others are written beside their facts. */
+type ModelCheckCode = Exclude<
+  FlagCode,
+  | 'forecast-bias'
+  | 'setting-replaced'
+  | 'history-mismatch'
+  | 'plan-error'
+  | 'shelf-life-below-moq'
+  | 'diagnostics-failed'
+  | 'plan-failed'
+>;
 
 const pct = (x: number): string => `${Math.round(Math.abs(x) * 100)}%`;
 const num = (x: number, digits = 3): string =>
   Number.isFinite(x) ? Number(x.toPrecision(digits)).toString() : String(x);
 
-export function makeFlag(code: FlagCode, facts: Record<string, number | string> = {}): Flag {
+export function makeFlag(code: ModelCheckCode, facts: Record<string, number | string> = {}): Flag {
   const f = facts;
   switch (code) {
     case 'short-history':

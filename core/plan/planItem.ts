@@ -2,6 +2,7 @@ import quantile from '@stdlib/stats-base-dists-normal-quantile';
 import { acfBand, sampleAcf } from '../arma/autocorrelation';
 import { arRoots, maRoots } from '../arma/roots';
 import { type Diagnostics, diagnoseChoice } from '../diagnose/diagnoseChoice';
+import type { FlagCode } from '../diagnose/flags';
 import type { AbcClass } from '../replenish/abc';
 import { serviceTarget } from '../replenish/abc';
 import type { IntervalMoments, SumMoments } from '../replenish/intervalDemand';
@@ -569,7 +570,7 @@ function cleanInput(input: PlanItemInput): Cleaned {
 
 // ---------------------------------------------------------------------------------------------
 
-function internalFlag(code: string, severity: Flag['severity'], reason: string, action?: string): Flag {
+function internalFlag(code: FlagCode, severity: Flag['severity'], reason: string, action?: string): Flag {
   return {
     code,
     severity,

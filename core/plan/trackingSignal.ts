@@ -1,3 +1,4 @@
+import type { FlagCode } from '../diagnose/flags';
 import type { Flag, ForecastTracking } from './types';
 
 /**
@@ -73,7 +74,7 @@ export function forecastBiasFlag(t: ForecastTracking | null): Flag | null {
   if (!t || t.count < TRACKING_MIN_WEEKS || Math.abs(t.trackingSignal) <= t.limit) return null;
   const low = t.trackingSignal > 0;
   return {
-    code: 'forecast-bias',
+    code: 'forecast-bias' satisfies FlagCode,
     severity: 'warning',
     reason:
       `Over the last ${t.count} observed weeks the forecasts ran ${low ? 'below' : 'above'} actual demand ` +
