@@ -11,6 +11,29 @@ export interface FieldSpec {
   required?: boolean;
 }
 
+/** The SKU column, named the same way in every kind of file. */
+const SKU_FIELD: FieldSpec = {
+  field: 'sku',
+  required: true,
+  synonyms: [
+    'sku',
+    'item',
+    'item_code',
+    'item_no',
+    'item_number',
+    'item_id',
+    'article',
+    'article_no',
+    'product',
+    'product_code',
+    'product_id',
+    'part',
+    'part_no',
+    'part_number',
+    'code',
+  ],
+};
+
 export const FIELDS: Record<ImportKind, FieldSpec[]> = {
   sales: [
     {
@@ -40,27 +63,7 @@ export const FIELDS: Record<ImportKind, FieldSpec[]> = {
         'day',
       ],
     },
-    {
-      field: 'sku',
-      required: true,
-      synonyms: [
-        'sku',
-        'item',
-        'item_code',
-        'item_no',
-        'item_number',
-        'item_id',
-        'article',
-        'article_no',
-        'product',
-        'product_code',
-        'product_id',
-        'part',
-        'part_no',
-        'part_number',
-        'code',
-      ],
-    },
+    SKU_FIELD,
     {
       field: 'qty',
       required: true,
@@ -95,26 +98,7 @@ export const FIELDS: Record<ImportKind, FieldSpec[]> = {
     },
   ],
   items: [
-    {
-      field: 'sku',
-      required: true,
-      synonyms: [
-        'sku',
-        'item',
-        'item_code',
-        'item_no',
-        'item_number',
-        'item_id',
-        'article',
-        'article_no',
-        'product',
-        'product_code',
-        'product_id',
-        'part',
-        'part_no',
-        'code',
-      ],
-    },
+    SKU_FIELD,
     {
       field: 'description',
       synonyms: ['description', 'desc', 'name', 'item_name', 'product_name', 'item_description', 'title'],
@@ -197,26 +181,7 @@ export const FIELDS: Record<ImportKind, FieldSpec[]> = {
     { field: 'active', synonyms: ['active', 'is_active', 'enabled', 'status_active', 'in_use'] },
   ],
   stock: [
-    {
-      field: 'sku',
-      required: true,
-      synonyms: [
-        'sku',
-        'item',
-        'item_code',
-        'item_no',
-        'item_number',
-        'item_id',
-        'article',
-        'article_no',
-        'product',
-        'product_code',
-        'product_id',
-        'part',
-        'part_no',
-        'code',
-      ],
-    },
+    SKU_FIELD,
     {
       field: 'on_hand',
       required: true,

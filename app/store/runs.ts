@@ -728,32 +728,19 @@ export function getOrderLinesBySupplier(
   return { runId: run, groups };
 }
 
+/** An item's chosen order and its status in a run, as the items overview lists them. */
+export interface ChosenOrder {
+  p: number;
+  d: number;
+  q: number;
+  seasonalHarmonics: number;
+  includeMean: boolean;
+  status: ItemRunResult['status'];
+}
+
 /** SKU → the chosen model and item status of every item in a run (default: latest), in one query. */
-export function getChosenModels(
-  store: Store,
-  runId?: number,
-): Map<
-  string,
-  {
-    p: number;
-    d: number;
-    q: number;
-    seasonalHarmonics: number;
-    includeMean: boolean;
-    status: ItemRunResult['status'];
-  } | null
-> {
-  const out = new Map<
-    string,
-    {
-      p: number;
-      d: number;
-      q: number;
-      seasonalHarmonics: number;
-      includeMean: boolean;
-      status: ItemRunResult['status'];
-    } | null
-  >();
+export function getChosenModels(store: Store, runId?: number): Map<string, ChosenOrder | null> {
+  const out = new Map<string, ChosenOrder | null>();
   const run = resolveRunId(store, runId);
   if (run === null) return out;
   const rows = store.db

@@ -15,24 +15,6 @@ export class ApiError extends Error {
   override name = 'ApiError';
 }
 
-const METHODS: ApiMethod[] = [
-  'storeInfo',
-  'listItems',
-  'reviewQueue',
-  'getItem',
-  'previewImport',
-  'commitImport',
-  'startRun',
-  'runProgress',
-  'cancelRun',
-  'decide',
-  'listOrders',
-  'setOrderQty',
-  'exportOrdersCsv',
-  'getSettings',
-  'saveSettings',
-];
-
 function tokenFromAddress(): string {
   const fromQuery = new URLSearchParams(window.location.search).get('token');
   if (fromQuery) {
@@ -42,24 +24,32 @@ function tokenFromAddress(): string {
   return sessionStorage.getItem('provision-token') ?? '';
 }
 
+/**
+ * The API over HTTP: every method of ProvisionApi is a POST to /api/<method>. The method list lives
+ * once, in app/transport/validate-call.ts, which the server checks every call against; here any
+ * method name becomes a call (a Proxy), so the client never repeats the list.
+ */
 export function httpApi(token: string, base = ''): ProvisionApi {
-  const api: Record<string, (...args: unknown[]) => Promise<unknown>> = {};
-  for (const method of METHODS) {
-    api[method] = async (...args: unknown[]) => {
-      const res = await fetch(`${base}/api/${method}`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json', 'x-provision-token': token },
-        body: JSON.stringify(args),
-      });
-      const body = (await res.json().catch(() => ({ error: `HTTP ${res.status}` }))) as {
-        result?: unknown;
-        error?: string;
-      };
-      if (!res.ok) throw new ApiError(body.error ?? `HTTP ${res.status}`);
-      return body.result;
+  const call = async (method: ApiMethod, args: unknown[]): Promise<unknown> => {
+    const res = await fetch(`${base}/api/${method}`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'x-provision-token': token },
+      body: JSON.stringify(args),
+    });
+    const body = (await res.json().catch(() => ({ error: `HTTP ${res.status}` }))) as {
+      result?: unknown;
+      error?: string;
     };
-  }
-  return api as unknown as ProvisionApi;
+    if (!res.ok) throw new ApiError(body.error ?? `HTTP ${res.status}`);
+    return body.result;
+  };
+  return new Proxy({} as ProvisionApi, {
+    get(_target, name) {
+      // Not a thenable, and no symbol-keyed methods.
+      if (typeof name !== 'string' || name === 'then') return undefined;
+      return (...args: unknown[]) => call(name as ApiMethod, args);
+    },
+  });
 }
 
 export function connectApi(): ProvisionApi {
