@@ -1,15 +1,16 @@
 /**
  * `fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H]
- *      [--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest]`
+ *      [--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest] [--threads N]`
  * Fits an ARIMA model to each weekly series and prints one JSON object per file per line (JSON
  * Lines). Without --order the model is chosen automatically (core/select: order, differencing,
  * annual terms, sparse-demand method), with diagnostics, flags and, on request, a backtest.
- * All files are fitted in this one process (the JIT warms up once). A file that cannot be read is reported on stderr with its line
- * and field; the other files are still fitted, and the exit code is 1.
+ * All files are fitted in this one process (the JIT warms up once), from 64 files on with one
+ * worker thread per further core (fit-parallel.ts; --threads N to use fewer); lines come out in
+ * the order the files were given either way. A file that cannot be read is reported on stderr with
+ * its line and field; the other files are still fitted, and the exit code is 1.
  */
-import { type ArmaFit, fitArma, forecastArma, forecastIntervals } from '../../core/arma';
-import { choiceRecord } from '../../core/select/choiceRecord';
-import { CsvInputError, readWeeklyCsv } from './fit-csv';
+import { fitFile } from './fit-file';
+import { fitFilesOnCores, fitThreads } from './fit-parallel';
 
 export interface FitCommandOptions {
   order: { p: number; d: number; q: number } | null;
@@ -21,66 +22,13 @@ export interface FitCommandOptions {
   search: 'stepwise' | 'grid';
   /** --backtest: add a rolling-origin backtest over the last 26 weeks to each line. */
   backtest: boolean;
+  /** --threads N: at most N threads (default: one per core from 64 files on). */
+  threads: number | null;
 }
 
 const USAGE =
   'usage: npm run -s cli -- fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H] ' +
-  '[--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest]\n';
-
-/** The model for one series. The one place that decides which model a series gets. */
-export function fitSeries(values: Float64Array, options: FitCommandOptions): ArmaFit {
-  const order = options.order ?? { p: 1, d: 0, q: 1 };
-  return fitArma(values, { ...order, includeMean: options.includeMean });
-}
-
-function num(v: number): number | null {
-  return Number.isFinite(v) ? v : null;
-}
-
-function nums(v: ArrayLike<number>): (number | null)[] {
-  return Array.from(v, num);
-}
-
-/** The JSON line for one fitted file. */
-export function fitRecord(file: string, n: number, fit: ArmaFit, horizon: number): string {
-  const fc = forecastArma(fit, horizon);
-  const iv = forecastIntervals(fc.mean, fc.se);
-  const forecast = [];
-  for (let h = 0; h < horizon; h++) {
-    forecast.push({
-      step: h + 1,
-      mean: num(fc.mean[h]),
-      se: num(fc.se[h]),
-      lower80: num(iv.lower80[h]),
-      upper80: num(iv.upper80[h]),
-      lower95: num(iv.lower95[h]),
-      upper95: num(iv.upper95[h]),
-    });
-  }
-  return JSON.stringify({
-    file,
-    n,
-    order: fit.order,
-    mean: fit.mean === null ? null : num(fit.mean),
-    ar: nums(fit.ar),
-    ma: nums(fit.ma),
-    sigma2: num(fit.sigma2),
-    loglik: num(fit.loglik),
-    aic: num(fit.aic),
-    aicc: num(fit.aicc),
-    bic: num(fit.bic),
-    converged: fit.converged,
-    stderr: {
-      ar: nums(fit.stderr.ar),
-      ma: nums(fit.stderr.ma),
-      mean: fit.stderr.mean === null ? null : num(fit.stderr.mean),
-      xreg: nums(fit.stderr.xreg),
-    },
-    flags: fit.flags,
-    forecast,
-    signConvention: 'ma-minus',
-  });
-}
+  '[--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest] [--threads N]\n';
 
 class UsageError extends Error {}
 
@@ -94,6 +42,7 @@ export function parseFitArgs(args: string[]): { files: string[]; options: FitCom
     valueColumn: 'qty',
     search: 'stepwise',
     backtest: false,
+    threads: null,
   };
   const value = (i: number, name: string): string => {
     const v = args[i + 1];
@@ -129,7 +78,14 @@ export function parseFitArgs(args: string[]): { files: string[]; options: FitCom
         throw new UsageError(`--search '${text}' must be stepwise or grid`);
       options.search = text;
     } else if (a === '--backtest') options.backtest = true;
-    else if (a.startsWith('--')) throw new UsageError(`unknown option '${a}'`);
+    else if (a === '--threads') {
+      const text = value(i++, a);
+      const t = Number(text);
+      if (!Number.isInteger(t) || t < 1 || t > 64) {
+        throw new UsageError(`--threads '${text}' must be a whole number from 1 to 64`);
+      }
+      options.threads = t;
+    } else if (a.startsWith('--')) throw new UsageError(`unknown option '${a}'`);
     else files.push(a);
   }
   if (files.length === 0) throw new UsageError('no CSV file given');
@@ -148,24 +104,33 @@ export default async function fit(args: string[]): Promise<number> {
     throw err;
   }
   const { files, options } = parsed;
-  let failed = 0;
   let out: string[] = [];
   const flush = (): void => {
     if (out.length) process.stdout.write(`${out.join('\n')}\n`);
     out = [];
   };
-  for (const file of files) {
-    try {
-      const series = readWeeklyCsv(file, options);
-      // Model choice (automatic without --order), forecast, diagnosis and flags: core/select.
-      out.push(JSON.stringify(choiceRecord(file, series.values, series.firstWeek, options)));
-    } catch (err) {
-      if (!(err instanceof CsvInputError)) throw err;
+  const threads = Math.min(options.threads ?? Number.POSITIVE_INFINITY, fitThreads(files.length));
+  const write = {
+    line: (text: string) => {
+      out.push(text);
+      if (out.length >= 256) flush();
+    },
+    error: (text: string) => {
       flush();
-      process.stderr.write(`fit: ${err.message}\n`);
-      failed++;
+      process.stderr.write(`fit: ${text}\n`);
+    },
+  };
+  let failed = 0;
+  if (threads > 1) failed = await fitFilesOnCores(files, options, write, threads);
+  else {
+    for (const file of files) {
+      const outcome = fitFile({ file, options });
+      if ('line' in outcome) write.line(outcome.line);
+      else {
+        write.error(outcome.error);
+        failed++;
+      }
     }
-    if (out.length >= 256) flush();
   }
   flush();
   return failed > 0 ? 1 : 0;
