@@ -1,15 +1,17 @@
 /**
  * The `fit` command over many files on every core: the command's own thread and one worker thread
  * per further core take the next file from a shared counter (Atomics on a SharedArrayBuffer), so
- * no thread waits for a hand-out and the command's thread is fitting while the workers start. Lines
+ * no thread waits for a hand-out and the command's thread is fitting while the workers start (from
+ * a bundle of their code: fit-worker-entry.ts). Lines
  * are written in the order the files were given, each as soon as every earlier file is done. A file
  * a worker could not finish (the thread died) is fitted again by the command's own thread.
  */
 import { availableParallelism } from 'node:os';
 import { MessageChannel, type MessagePort, receiveMessageOnPort, type Worker } from 'node:worker_threads';
-import { siblingModule, startTsWorker } from '../run/tsWorker';
+import { startTsWorker } from '../run/tsWorker';
 import type { FitCommandOptions } from './fit';
 import { type FitFileOutcome, fitFile } from './fit-file';
+import { fitWorkerEntry } from './fit-worker-entry';
 
 export interface FitOutput {
   line(text: string): void;
@@ -63,10 +65,11 @@ export async function fitFilesOnCores(
     results[msg.index] =
       'outcome' in msg ? msg.outcome : { error: `${files[msg.index]}: the fit failed (${msg.crash})` };
   };
-  for (let w = 1; w < threads; w++) {
+  const entry = threads > 1 ? await fitWorkerEntry() : null;
+  for (let w = 1; entry && w < threads; w++) {
     const { port1, port2 } = new MessageChannel();
     const data: FitWorkerData = { counter, port: port2, files, options };
-    const worker = startTsWorker(siblingModule('fit-worker', import.meta.url), {
+    const worker = startTsWorker(entry, {
       workerData: data,
       transferList: [port2],
     });

@@ -4,14 +4,15 @@
  * the exit code, the other files still fitted.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FitWorkerData, FitWorkerMessage } from '../../app/cli/fit-parallel';
 import { PARALLEL_FROM } from '../../app/cli/fit-parallel';
-import { siblingModule, startTsWorker } from '../../app/run/tsWorker';
+import { bundleIsCurrent, fitWorkerEntry } from '../../app/cli/fit-worker-entry';
+import { startTsWorker } from '../../app/run/tsWorker';
 import { createRng, simulateArma } from '../../core/arma';
 
 const root = join(import.meta.dirname, '..', '..');
@@ -68,7 +69,7 @@ describe('fit on several threads', () => {
     expect(errors[1]).toContain(`${files[41]}: line 31: field 'week': '2024-02-30'`);
   }, 60_000);
 
-  it('a worker takes files from the shared counter and posts each outcome, input errors included', async () => {
+  it('a worker (started from its bundle) takes files from the shared counter and posts each outcome', async () => {
     const counter = new SharedArrayBuffer(4);
     // The command's thread has taken the first 10 files already.
     Atomics.store(new Int32Array(counter), 0, 10);
@@ -90,13 +91,9 @@ describe('fit on several threads', () => {
     };
     const got: FitWorkerMessage[] = [];
     port1.on('message', (m: FitWorkerMessage) => got.push(m));
-    const worker = startTsWorker(
-      siblingModule('fit-worker', new URL('../../app/cli/fit.ts', import.meta.url).href),
-      {
-        workerData: data,
-        transferList: [port2],
-      },
-    );
+    const entry = await fitWorkerEntry();
+    expect(entry.pathname.endsWith('/node_modules/.cache/provision/fit-worker.mjs')).toBe(true);
+    const worker = startTsWorker(entry, { workerData: data, transferList: [port2] });
     await new Promise((resolve) => worker.once('exit', resolve));
     await new Promise((resolve) => setTimeout(resolve, 50));
     port1.close();
@@ -107,6 +104,20 @@ describe('fit on several threads', () => {
     );
     expect(got.filter((m) => 'outcome' in m && 'line' in m.outcome).length).toBe(34);
   }, 30_000);
+
+  it('the bundle counts as current only while every input keeps its size and modification time', () => {
+    const input = join(dir, 'input.ts');
+    const bundle = join(dir, 'bundle.mjs');
+    const manifest = join(dir, 'inputs.json');
+    writeFileSync(input, 'export const a = 1;\n');
+    writeFileSync(bundle, '');
+    const st = statSync(input);
+    writeFileSync(manifest, JSON.stringify({ [input]: [st.size, st.mtimeMs] }));
+    expect(bundleIsCurrent(manifest, bundle)).toBe(true);
+    utimesSync(input, new Date(), new Date(Date.now() + 5000));
+    expect(bundleIsCurrent(manifest, bundle)).toBe(false);
+    expect(bundleIsCurrent(join(dir, 'missing.json'), bundle)).toBe(false);
+  });
 
   it('refuses a bad --threads value', () => {
     const r = runFit([files[0], '--threads', '0']);
