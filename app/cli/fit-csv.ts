@@ -6,7 +6,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { parse } from 'csv-parse/sync';
-import { isoWeekMonday, parseIsoDate } from '../../core/series/calendar';
+import { dayNumber, isoWeekMonday } from '../../core/series/calendar';
 
 export interface WeeklyCsvOptions {
   dateColumn: string;
@@ -22,25 +22,171 @@ export interface WeeklySeries {
 
 export class CsvInputError extends Error {}
 
+/** A decimal number as a CSV cell may hold it: sign, digits, optional fraction and exponent. */
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const ISO_WEEK = /^(\d{4})-?W(\d{2})$/;
+/** Exact powers of ten 10^0 … 10^15 (every one is a double exactly). */
+const POW10 = Array.from({ length: 16 }, (_, k) => 10 ** k);
+const DAYS_IN_MONTH = [0, 31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
-function parseWeek(text: string): number | null {
-  const iso = parseIsoDate(text);
-  if (iso !== null) return iso;
-  const m = /^(\d{4})-?W(\d{2})$/.exec(text);
-  return m ? isoWeekMonday(+m[1], +m[2]) : null;
+const COMMA = 44;
+const DASH = 45;
+const DOT = 46;
+const CR = 13;
+
+/** Day number of YYYY-MM-DD or YYYY-Www, or null when the text is neither or not a real date. */
+export function parseWeek(text: string): number | null {
+  return weekAt(text, 0, text.length);
 }
 
-/** Rows of a CSV text with no quote characters (BOM dropped, empty lines skipped, fields trimmed). */
-export function splitPlainCsv(text: string): string[][] {
-  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  const rows: string[][] = [];
-  for (const line of body.split('\n')) {
-    const clean = line.endsWith('\r') ? line.slice(0, -1) : line;
-    if (clean.trim() === '') continue;
-    rows.push(clean.split(',').map((f) => f.trim()));
+/** parseWeek on text[a, b) without cutting it out (the common YYYY-MM-DD read from character codes). */
+function weekAt(text: string, a: number, b: number): number | null {
+  if (b - a === 10 && text.charCodeAt(a + 4) === DASH && text.charCodeAt(a + 7) === DASH) {
+    let y = 0;
+    let m = 0;
+    let d = 0;
+    for (let i = 0; i < 10; i++) {
+      if (i === 4 || i === 7) continue;
+      const c = text.charCodeAt(a + i) - 48;
+      if (c < 0 || c > 9) return null;
+      if (i < 4) y = 10 * y + c;
+      else if (i < 7) m = 10 * m + c;
+      else d = 10 * d + c;
+    }
+    if (m < 1 || m > 12 || d < 1) return null;
+    const leap = m === 2 && y % 4 === 0 && (y % 100 !== 0 || y % 400 === 0);
+    if (d > DAYS_IN_MONTH[m] + (leap ? 1 : 0)) return null;
+    return dayNumber(y, m, d);
   }
-  return rows;
+  const w = ISO_WEEK.exec(a === 0 && b === text.length ? text : text.slice(a, b));
+  return w ? isoWeekMonday(+w[1], +w[2]) : null;
+}
+
+/**
+ * The number in text[a, b) (non-empty, trimmed) as Number() reads it, or null when it does not
+ * match NUMBER. Plain decimals of at most 15 digits are read from the character codes: the digits
+ * form an exact integer below 2^53 and one division by an exact power of ten is correctly rounded
+ * (IEEE 754), so the result is the same double Number() gives (Clinger 1990, the fast path). Other
+ * forms (exponents, longer digit strings) go through the regular expression and Number().
+ */
+function numberAt(text: string, a: number, b: number): number | null {
+  let i = a;
+  let negative = false;
+  const s = text.charCodeAt(i);
+  if (s === 43 || s === DASH) {
+    negative = s === DASH;
+    i++;
+  }
+  let mantissa = 0;
+  let digits = 0;
+  let fraction = 0;
+  let dot = false;
+  for (; i < b; i++) {
+    const c = text.charCodeAt(i);
+    if (c === DOT && !dot) {
+      dot = true;
+      continue;
+    }
+    const v = c - 48;
+    if (v < 0 || v > 9) break;
+    mantissa = 10 * mantissa + v;
+    digits++;
+    if (dot) fraction++;
+  }
+  if (i === b && digits > 0 && digits <= 15) {
+    const x = mantissa / POW10[fraction];
+    return negative ? -x : x;
+  }
+  const cell = text.slice(a, b);
+  return NUMBER.test(cell) ? Number(cell) : null;
+}
+
+function isBlank(c: number): boolean {
+  // ECMAScript WhiteSpace and LineTerminator, the characters String.prototype.trim removes.
+  return (
+    c === 32 ||
+    (c >= 9 && c <= 13) ||
+    (c >= 0xa0 &&
+      (c === 0xa0 ||
+        c === 0x1680 ||
+        (c >= 0x2000 && c <= 0x200a) ||
+        c === 0x2028 ||
+        c === 0x2029 ||
+        c === 0x202f ||
+        c === 0x205f ||
+        c === 0x3000 ||
+        c === 0xfeff))
+  );
+}
+
+/** Every trimmed field of text[start, end). */
+function fieldsOf(text: string, start: number, end: number): string[] {
+  return text
+    .slice(start, end)
+    .split(',')
+    .map((f) => f.trim());
+}
+
+/** Collects the weekly values row by row, with the checks (and messages) of the file format. */
+class WeeklyBuilder {
+  values = new Float64Array(256);
+  count = 0;
+  firstWeek = Number.NaN;
+  prevWeek = Number.NaN;
+  constructor(
+    readonly file: string,
+    readonly opts: WeeklyCsvOptions,
+  ) {}
+
+  /** One record: its week in w[wa, wb) and its quantity in v[va, vb), both trimmed. */
+  add(line: number, w: string, wa: number, wb: number, v: string, va: number, vb: number): void {
+    const week = weekAt(w, wa, wb);
+    if (week === null) {
+      throw new CsvInputError(
+        `${this.file}: line ${line}: field '${this.opts.dateColumn}': '${w.slice(wa, wb)}' is not a date (YYYY-MM-DD or YYYY-Www)`,
+      );
+    }
+    let qty = Number.NaN;
+    if (vb > va) {
+      const x = numberAt(v, va, vb);
+      if (x === null) {
+        throw new CsvInputError(
+          `${this.file}: line ${line}: field '${this.opts.valueColumn}': '${v.slice(va, vb)}' is not a number`,
+        );
+      }
+      qty = x;
+    }
+    if (Number.isNaN(this.firstWeek)) {
+      this.firstWeek = week;
+    } else {
+      const gap = week - this.prevWeek;
+      if (gap <= 0 || gap % 7 !== 0) {
+        throw new CsvInputError(
+          `${this.file}: line ${line}: field '${this.opts.dateColumn}': '${w.slice(wa, wb)}' is not a later week than the row before ` +
+            '(weeks must increase by whole weeks)',
+        );
+      }
+      for (let k = 7; k < gap; k += 7) this.push(Number.NaN);
+    }
+    this.prevWeek = week;
+    this.push(qty);
+  }
+
+  private push(x: number): void {
+    if (this.count === this.values.length) {
+      const grown = new Float64Array(2 * this.values.length);
+      grown.set(this.values);
+      this.values = grown;
+    }
+    this.values[this.count++] = x;
+  }
+
+  result(): WeeklySeries {
+    return {
+      firstWeek: Number.isNaN(this.firstWeek) ? 0 : this.firstWeek,
+      values: this.values.slice(0, this.count),
+    };
+  }
 }
 
 export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySeries {
@@ -53,70 +199,95 @@ export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySerie
       `${file}: cannot read the file (${code === 'ENOENT' ? 'no such file' : (code ?? String(err))})`,
     );
   }
-  let rows: string[][];
-  if (text.indexOf('"') < 0) {
-    // Without a quote character RFC 4180 reduces to commas between fields and line breaks between
-    // records; splitting is several times faster than the general parser, which matters when
-    // thousands of files are fitted in one call. Anything quoted goes to csv-parse.
-    rows = splitPlainCsv(text);
-  } else {
+  const columnsOf = (header: string[]): { di: number; vi: number } => {
+    const di = header.indexOf(opts.dateColumn);
+    const vi = header.indexOf(opts.valueColumn);
+    for (const [name, idx, flag] of [
+      [opts.dateColumn, di, '--date-column'],
+      [opts.valueColumn, vi, '--value-column'],
+    ] as const) {
+      if (idx < 0) {
+        throw new CsvInputError(
+          `${file}: line 1: no column '${name}' in the header (${header.join(', ')}); name it with ${flag}`,
+        );
+      }
+    }
+    return { di, vi };
+  };
+  const empty = (): CsvInputError =>
+    new CsvInputError(`${file}: line 1: the file is empty; expected a header row`);
+  const out = new WeeklyBuilder(file, opts);
+
+  if (text.indexOf('"') >= 0) {
+    // Anything quoted goes to csv-parse; its records are numbered as they come (line = record + 1).
+    let records: string[][];
     try {
-      rows = parse(text, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true });
+      records = parse(text, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: true });
     } catch (err) {
       throw new CsvInputError(`${file}: not a readable CSV file (${(err as Error).message})`);
     }
-  }
-  if (rows.length === 0) throw new CsvInputError(`${file}: line 1: the file is empty; expected a header row`);
-  const header = rows[0];
-  const di = header.indexOf(opts.dateColumn);
-  const vi = header.indexOf(opts.valueColumn);
-  for (const [name, idx, flag] of [
-    [opts.dateColumn, di, '--date-column'],
-    [opts.valueColumn, vi, '--value-column'],
-  ] as const) {
-    if (idx < 0) {
-      throw new CsvInputError(
-        `${file}: line 1: no column '${name}' in the header (${header.join(', ')}); name it with ${flag}`,
-      );
+    if (records.length === 0) throw empty();
+    const { di, vi } = columnsOf(records[0]);
+    for (let r = 1; r < records.length; r++) {
+      const w = records[r][di] ?? '';
+      const v = records[r][vi] ?? '';
+      out.add(r + 1, w, 0, w.length, v, 0, v.length);
     }
+    return out.result();
   }
-  const values: number[] = [];
-  let firstWeek = Number.NaN;
-  let prevWeek = Number.NaN;
-  for (let r = 1; r < rows.length; r++) {
-    const row = rows[r];
-    const line = r + 1;
-    const wText = row[di] ?? '';
-    const week = parseWeek(wText);
-    if (week === null) {
-      throw new CsvInputError(
-        `${file}: line ${line}: field '${opts.dateColumn}': '${wText}' is not a date (YYYY-MM-DD or YYYY-Www)`,
-      );
-    }
-    const qText = row[vi] ?? '';
-    let qty = Number.NaN;
-    if (qText !== '') {
-      if (!NUMBER.test(qText)) {
-        throw new CsvInputError(
-          `${file}: line ${line}: field '${opts.valueColumn}': '${qText}' is not a number`,
-        );
+
+  // Without a quote character RFC 4180 reduces to commas between fields and line breaks between
+  // records. One pass over the text by character codes, cutting nothing out but the header: this
+  // runs over every line of thousands of files in one `fit` call. Lines of blanks are skipped;
+  // fields are trimmed; a BOM is dropped; lines are counted as they are in the file.
+  const len = text.length;
+  let pos = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let line = 0;
+  let di = -1;
+  let vi = -1;
+  let last = -1;
+  while (pos < len) {
+    line++;
+    let end = text.indexOf('\n', pos);
+    if (end < 0) end = len;
+    let stop = end;
+    if (stop > pos && text.charCodeAt(stop - 1) === CR) stop--;
+    let first = pos;
+    while (first < stop && isBlank(text.charCodeAt(first))) first++;
+    if (first < stop) {
+      if (last < 0) {
+        ({ di, vi } = columnsOf(fieldsOf(text, pos, stop)));
+        last = Math.max(di, vi);
+      } else {
+        // Bounds of fields di and vi ([len, len) when the row is shorter: an empty cell).
+        let wa = len;
+        let wb = len;
+        let va = len;
+        let vb = len;
+        let field = 0;
+        let a = pos;
+        for (let i = pos; i <= stop; i++) {
+          if (i < stop && text.charCodeAt(i) !== COMMA) continue;
+          if (field === di) {
+            wa = a;
+            wb = i;
+          }
+          if (field === vi) {
+            va = a;
+            vb = i;
+          }
+          if (++field > last) break;
+          a = i + 1;
+        }
+        while (wa < wb && isBlank(text.charCodeAt(wa))) wa++;
+        while (wb > wa && isBlank(text.charCodeAt(wb - 1))) wb--;
+        while (va < vb && isBlank(text.charCodeAt(va))) va++;
+        while (vb > va && isBlank(text.charCodeAt(vb - 1))) vb--;
+        out.add(line, text, wa, wb, text, va, vb);
       }
-      qty = Number(qText);
     }
-    if (Number.isNaN(firstWeek)) {
-      firstWeek = week;
-    } else {
-      const gap = week - prevWeek;
-      if (gap <= 0 || gap % 7 !== 0) {
-        throw new CsvInputError(
-          `${file}: line ${line}: field '${opts.dateColumn}': '${wText}' is not a later week than the row before ` +
-            '(weeks must increase by whole weeks)',
-        );
-      }
-      for (let k = 7; k < gap; k += 7) values.push(Number.NaN);
-    }
-    prevWeek = week;
-    values.push(qty);
+    pos = end + 1;
   }
-  return { firstWeek: Number.isNaN(firstWeek) ? 0 : firstWeek, values: Float64Array.from(values) };
+  if (last < 0) throw empty();
+  return out.result();
 }

@@ -1,6 +1,6 @@
 import type { Flag } from '../plan/types';
 import { polynomialRootModuli } from '../select/engine';
-import { forecastChoice } from '../select/forecastChoice';
+import { type ChoiceForecast, forecastChoice } from '../select/forecastChoice';
 import type { ModelChoice } from '../select/modelChoice';
 import { chiSquareUpperTail } from './chiSquare';
 import { makeFlag } from './flags';
@@ -51,7 +51,12 @@ export const LOSES_TO_NAIVE = 1.1;
 export function diagnoseChoice(
   choice: ModelChoice,
   weekStart: string[],
-  options: { horizon?: number; y?: ArrayLike<number> } = {},
+  options: {
+    horizon?: number;
+    y?: ArrayLike<number>;
+    /** The choice's forecast over at least `horizon` weeks when the caller has it already. */
+    forecast?: ChoiceForecast;
+  } = {},
 ): { diagnostics: Diagnostics; flags: Flag[] } {
   const flags: Flag[] = [];
   const fit = choice.fit;
@@ -152,7 +157,8 @@ export function diagnoseChoice(
   const horizon = options.horizon ?? 26;
   let negative: Diagnostics['negativeForecast'] = null;
   if (horizon > 0) {
-    const f = forecastChoice(choice, horizon);
+    const given = options.forecast;
+    const f = given && given.mean.length >= horizon ? given : forecastChoice(choice, horizon);
     for (let h = 0; h < horizon; h++) {
       if (f.mean[h] < 0 && (!negative || f.mean[h] < negative.min))
         negative = { step: h + 1, min: f.mean[h] };

@@ -2,7 +2,7 @@ import { forecastIntervals } from '../arma/forecast';
 import { backtestChoice } from '../backtest/backtestChoice';
 import { backtestFlags } from '../backtest/backtestFlags';
 import { diagnoseChoice } from '../diagnose/diagnoseChoice';
-import { formatIsoDate } from '../series/calendar';
+import { civilDate } from '../series/calendar';
 import { chooseModel } from './chooseModel';
 import { forecastChoice } from './forecastChoice';
 
@@ -29,7 +29,7 @@ export function choiceRecord(
   options: ChoiceRecordOptions,
 ): Record<string, unknown> {
   const n = values.length;
-  const weekStart = Array.from({ length: n }, (_, i) => formatIsoDate(firstWeekDay + 7 * i));
+  const weekStart = weekStartsFrom(firstWeekDay, n);
   const choice = chooseModel(
     values,
     weekStart,
@@ -58,7 +58,7 @@ export function choiceRecord(
       upper95: num(iv.upper95[i]),
     });
   }
-  const { diagnostics, flags } = diagnoseChoice(choice, weekStart, { horizon: h, y: values });
+  const { diagnostics, flags } = diagnoseChoice(choice, weekStart, { horizon: h, y: values, forecast: fc });
   const fit = choice.kind === 'intermittent' ? null : choice.fit;
   const record: Record<string, unknown> = {
     // The fields of the fixed-order record first, in its order, then what the choice adds.
@@ -130,7 +130,66 @@ function num(v: number): number | null {
   return Number.isFinite(v) ? v : null;
 }
 
-/** A deep copy with non-finite numbers as null (JSON has no NaN or Infinity). */
-function finite<T>(v: T): T {
-  return JSON.parse(JSON.stringify(v, (_k, x) => (typeof x === 'number' && !Number.isFinite(x) ? null : x)));
+/**
+ * A deep copy of plain data (objects, arrays, typed arrays) with non-finite numbers as null, as JSON
+ * has no NaN or Infinity; undefined members are left out, as JSON.stringify leaves them.
+ */
+export function finite<T>(v: T): T {
+  return finiteCopy(v) as T;
+}
+
+function finiteCopy(v: unknown): unknown {
+  if (typeof v === 'number') return Number.isFinite(v) ? v : null;
+  if (v === null || typeof v !== 'object') return v;
+  if (Array.isArray(v) || ArrayBuffer.isView(v)) {
+    const a = v as ArrayLike<unknown>;
+    const out = new Array<unknown>(a.length);
+    for (let i = 0; i < a.length; i++) {
+      const x = finiteCopy(a[i]);
+      out[i] = x === undefined ? null : x;
+    }
+    return out;
+  }
+  const out: Record<string, unknown> = {};
+  for (const key of Object.keys(v)) {
+    const x = finiteCopy((v as Record<string, unknown>)[key]);
+    if (x !== undefined) out[key] = x;
+  }
+  return out;
+}
+
+const TWO_DIGITS = Array.from({ length: 32 }, (_, i) => (i < 10 ? `0${i}` : `${i}`));
+const MONTH_DAYS = [0, 31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/**
+ * YYYY-MM-DD of day numbers first, first + 7, … (n of them): the civil date of the first from the
+ * calendar (core/series), then stepped a week at a time through month lengths (Gregorian leap rule),
+ * which is what formatIsoDate gives for each, without a date conversion per week.
+ */
+export function weekStartsFrom(first: number, n: number): string[] {
+  const out = new Array<string>(Math.max(0, n));
+  if (n <= 0) return out;
+  let { year, month, day } = civilDate(first);
+  const leap = (y: number): boolean => y % 4 === 0 && (y % 100 !== 0 || y % 400 === 0);
+  const yearText = (y: number): string => (y >= 0 && y <= 9999 ? String(y).padStart(4, '0') : '');
+  let yt = yearText(year);
+  for (let i = 0; i < n; i++) {
+    if (yt === '') {
+      // Outside 0000–9999: the general formatter (never for real sales data).
+      const c = civilDate(first + 7 * i);
+      out[i] = `${String(c.year).padStart(4, '0')}-${TWO_DIGITS[c.month]}-${TWO_DIGITS[c.day]}`;
+    } else out[i] = `${yt}-${TWO_DIGITS[month]}-${TWO_DIGITS[day]}`;
+    day += 7;
+    const dim = MONTH_DAYS[month] + (month === 2 && leap(year) ? 1 : 0);
+    if (day > dim) {
+      day -= dim;
+      month++;
+      if (month > 12) {
+        month = 1;
+        year++;
+        yt = yearText(year);
+      }
+    }
+  }
+  return out;
 }

@@ -142,6 +142,34 @@ describe('npm run cli -- fit', () => {
     expect(plain).toEqual(quoted);
   });
 
+  it('plain-CSV scanner: quantities read as Number() reads them, fields trimmed, physical line numbers', () => {
+    // Number() (ECMAScript StringToNumber) is the reference for every quantity form NUMBER accepts.
+    const cells = ['1e3', '-.5', '+7.', '0.1234567890123456789', '-0', '1234567.125', '0.30000000000000004'];
+    cells.push('123456789012345', '1234567890123456', '00012.5000', '5e-324', '1E+2', '99999999999999.9');
+    const day0 = Date.UTC(2024, 0, 1);
+    const rows = cells.map(
+      (c, i) => `${new Date(day0 + 7 * i * 86400000).toISOString().slice(0, 10)},\u00a0${c} `,
+    );
+    writeFileSync(join(dir, 'numbers.csv'), `x,week,qty,y\n${rows.map((r) => `a,${r},b`).join('\n')}\n`);
+    const v = readWeeklyCsv(join(dir, 'numbers.csv'), { dateColumn: 'week', valueColumn: 'qty' }).values;
+    expect(Array.from(v).map((x) => (Object.is(x, -0) ? '-0' : x))).toEqual(
+      cells.map((c) => (Object.is(Number(c), -0) ? '-0' : Number(c))),
+    );
+    // A blank line before the bad row: the message names the line as it is in the file.
+    writeFileSync(join(dir, 'blankline.csv'), 'week,qty\n2024-01-01,5\n\n2024-01-08,.\n');
+    expect(() =>
+      readWeeklyCsv(join(dir, 'blankline.csv'), { dateColumn: 'week', valueColumn: 'qty' }),
+    ).toThrow(`${join(dir, 'blankline.csv')}: line 4: field 'qty': '.' is not a number`);
+    writeFileSync(join(dir, 'leap.csv'), 'week,qty\n2023-02-27,1\n2023-02-29,1\n');
+    expect(() => readWeeklyCsv(join(dir, 'leap.csv'), { dateColumn: 'week', valueColumn: 'qty' })).toThrow(
+      "line 3: field 'week': '2023-02-29' is not a date",
+    );
+    writeFileSync(join(dir, 'isoweek.csv'), 'week,qty\n2024-W01,1\n2024W03,2\n');
+    expect(
+      Array.from(readWeeklyCsv(join(dir, 'isoweek.csv'), { dateColumn: 'week', valueColumn: 'qty' }).values),
+    ).toEqual([1, Number.NaN, 2]);
+  });
+
   it('rejects a bad --order with a usage message', () => {
     const r = runFit([join(dir, 'good.csv'), '--order', '7,0,1']);
     expect(r.status).toBe(2);
