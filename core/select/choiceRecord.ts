@@ -105,6 +105,7 @@ export function choiceRecord(
         seasonalHarmonics: c.seasonalHarmonics,
         includeMean: c.includeMean,
         aicc: c.aicc === null ? null : num(c.aicc),
+        ...(c.aiccFrom ? { aiccFrom: c.aiccFrom } : {}),
         ...(c.passedOver ? { passedOver: c.passedOver } : {}),
       })),
       reason: choice.selection.reason,

@@ -62,8 +62,24 @@ interface Entry {
   fit: ArmaFit | null;
   aicc: number;
   nparams: number;
-  /** null when sound; otherwise why the candidate may not win over a sound one. */
-  unsound: string | null;
+  /**
+   * null when sound; otherwise why the candidate may not win over a sound one; undefined until
+   * asked (unsoundOf): the root check only runs for candidates that could win.
+   */
+  unsound?: string | null;
+}
+
+/**
+ * A neighbour of the walk with annual terms that was only screened: its AICc is from a two-stage
+ * fit (the ARMA part fitted to the series less the regression of the model it neighbours) and is an
+ * upper bound on the AICc of its joint fit (below).
+ */
+interface Screened {
+  p: number;
+  q: number;
+  k: number;
+  mean: boolean;
+  aicc: number;
 }
 
 export function chooseModel(
@@ -200,11 +216,49 @@ export function chooseModel(
       fit,
       aicc: fit && Number.isFinite(fit.aicc) ? fit.aicc : Number.POSITIVE_INFINITY,
       nparams: fit ? fit.nparams : nparams,
-      unsound: soundness(fit),
     };
     cache.set(key, entry);
     order.push(entry);
     return entry;
+  };
+
+  const screened = new Map<string, Screened>();
+  /**
+   * Two-stage AICc of ARMA(p,q) with k harmonic pairs: the regression coefficients held at those of
+   * `from` (a joint fit with the same k), the ARMA part, mean and σ² fitted to y − Xβ. Holding β at
+   * any value gives a likelihood no higher than the joint maximum, so with the same parameter count
+   * (β counted) this AICc is an upper bound on the joint fit's.
+   */
+  const screenOne = (p: number, q: number, k: number, mean: boolean, from: Entry): number => {
+    if (p < 0 || q < 0 || p > maxOrder || q > maxOrder || p + q > maxTotal) return Number.POSITIVE_INFINITY;
+    const nparams = p + q + (mean ? 1 : 0) + 2 * k + 1;
+    if (nparams > maxParams) return Number.POSITIVE_INFINITY;
+    const key = `${p},${q},${k},${mean ? 1 : 0}`;
+    const joint = cache.get(key);
+    if (joint) return joint.aicc;
+    const seen = screened.get(key);
+    if (seen) return seen.aicc;
+    const beta = from.fit?.xregCoef ?? [];
+    let aicc = Number.POSITIVE_INFINITY;
+    if (beta.length === 2 * k) {
+      const u = new Float64Array(n);
+      for (let i = 0; i < n; i++) {
+        let v = series[i];
+        for (let j = 0; j < beta.length; j++) v -= beta[j] * allFourier[j][i];
+        u[i] = v;
+      }
+      try {
+        const f = fitArma(u, { p, d, q, includeMean: mean, effort: 'quick' });
+        const np = f.nparams + 2 * k;
+        const denom = f.nobs - np - 1;
+        if (!f.fallback && Number.isFinite(f.loglik) && denom > 0)
+          aicc = -2 * f.loglik + 2 * np + (2 * np * (np + 1)) / denom;
+      } catch {
+        aicc = Number.POSITIVE_INFINITY;
+      }
+    }
+    screened.set(key, { p, q, k, mean, aicc });
+    return aicc;
   };
 
   const meanChoices = d === 0 ? [true] : d === 1 ? [true, false] : [false];
@@ -225,10 +279,25 @@ export function chooseModel(
     while (current && budget > 0) {
       const before = order.length;
       const { p, q, mean } = current;
-      fitOne(p + 1, q, k, mean);
-      fitOne(p - 1, q, k, mean);
-      fitOne(p, q + 1, k, mean);
-      fitOne(p, q - 1, k, mean);
+      const steps: [number, number][] = [
+        [p + 1, q],
+        [p - 1, q],
+        [p, q + 1],
+        [p, q - 1],
+      ];
+      if (k === 0) {
+        for (const [a, b] of steps) fitOne(a, b, k, mean);
+      } else {
+        // With annual terms each joint fit filters every regressor column at every likelihood
+        // evaluation (several times the cost of a fit without them). The neighbours are screened
+        // first by a two-stage fit with the regression held where the current model has it; only
+        // those whose bound comes within the near-tie margin of the best are fitted jointly.
+        const bestNow = pick(order.filter((e) => e.k === k));
+        const bar = (bestNow ? bestNow.aicc : Number.POSITIVE_INFINITY) + NEAR_TIE;
+        const bounds = steps.map(([a, b]) => ({ a, b, aicc: screenOne(a, b, k, mean, current as Entry) }));
+        bounds.sort((x, y) => x.aicc - y.aicc);
+        for (const x of bounds) if (x.aicc < bar) fitOne(x.a, x.b, k, mean);
+      }
       budget -= order.length - before;
       let next = pick(order.filter((e) => e.k === k));
       if (next && next === current && d === 1) {
@@ -256,7 +325,7 @@ export function chooseModel(
         const e = fitOne(c.p, c.q, k, c.mean);
         if (!e) break;
         if (search !== 'grid' && k >= 2 && !(e.aicc < bestK)) break;
-        if (e.unsound === null && e.aicc < bestK) bestK = e.aicc;
+        if (unsoundOf(e) === null && e.aicc < bestK) bestK = e.aicc;
       }
       const seasonalBest = pick(order);
       if (seasonalBest && seasonalBest.k > 0) walk(seasonalBest.k, seasonalBest);
@@ -276,11 +345,18 @@ export function chooseModel(
   }
 
   if (!chosen?.fit) {
-    return fallbackChoice(series, base, tests, 'no candidate model could be fitted', recordOf(order, null));
+    return fallbackChoice(
+      series,
+      base,
+      tests,
+      'no candidate model could be fitted',
+      recordOf(order, null, screenedOnly(screened, cache)),
+    );
   }
   const fit = chosen.fit;
   const fitted = Array.from(fit.fitted);
   const kind = fit.fallback ? 'fallback' : 'arma';
+  const candidates = recordOf(order, chosen, screenedOnly(screened, cache));
   return {
     ...base,
     kind,
@@ -292,8 +368,8 @@ export function chooseModel(
     fallbackLevel: null,
     selection: {
       search,
-      candidates: recordOf(order, chosen),
-      reason: reasonOf(chosen, d, tests, order.length, search, screen),
+      candidates,
+      reason: reasonOf(chosen, d, tests, candidates.length, search, screen),
     },
     differencing: tests,
     fitted,
@@ -321,7 +397,7 @@ function polishWinner(series: Float64Array, d: number, e: Entry, allFourier: Flo
   e.fit = fit;
   e.aicc = fit.aicc;
   e.nparams = fit.nparams;
-  e.unsound = soundness(fit);
+  e.unsound = undefined;
 }
 
 /** Why a fit may not be chosen over a sound one, or null when it is sound. */
@@ -337,32 +413,54 @@ function soundness(fit: ArmaFit | null): string | null {
   return null;
 }
 
+/** Why a candidate may not be chosen over a sound one (null when sound), computed once when asked. */
+function unsoundOf(e: Entry): string | null {
+  if (e.unsound === undefined) e.unsound = soundness(e.fit);
+  return e.unsound;
+}
+
 /**
  * The winner among entries: the sound candidate with the lowest AICc, except that any sound candidate
  * within ΔAICc < 0.1 of it with fewer parameters wins (then the lower AICc). Unsound candidates win
- * only when no candidate is sound.
+ * only when no candidate is sound. Soundness (root moduli) is only checked, in ascending AICc, for
+ * candidates that could win: the ones below the best sound one and those within the near tie of it.
  */
 function pick(entries: Entry[]): Entry | null {
-  const sound = entries.filter((e) => e.unsound === null && Number.isFinite(e.aicc));
-  const pool = sound.length ? sound : entries.filter((e) => e.fit && Number.isFinite(e.aicc));
-  if (pool.length === 0) {
+  const fitted = entries.filter((e) => e.fit && Number.isFinite(e.aicc));
+  if (fitted.length === 0) {
     // Nothing fitted properly (a constant series, say): the simplest fitted candidate.
     let simplest: Entry | null = null;
     for (const e of entries) if (e.fit && (!simplest || e.nparams < simplest.nparams)) simplest = e;
     return simplest;
   }
-  let best = pool[0];
-  for (const e of pool) if (e.aicc < best.aicc) best = e;
-  let winner = best;
-  for (const e of pool) {
-    if (e.aicc - best.aicc >= NEAR_TIE) continue;
+  fitted.sort((a, b) => a.aicc - b.aicc);
+  let best: Entry | null = null;
+  for (const e of fitted) {
+    if (unsoundOf(e) === null) {
+      best = e;
+      break;
+    }
+  }
+  const soundOnly = best !== null;
+  const top = best ?? fitted[0];
+  let winner = top;
+  for (const e of fitted) {
+    if (e.aicc - top.aicc >= NEAR_TIE) break;
+    if (soundOnly && unsoundOf(e) !== null) continue;
     if (e.nparams < winner.nparams || (e.nparams === winner.nparams && e.aicc < winner.aicc)) winner = e;
   }
   return winner;
 }
 
-function recordOf(entries: Entry[], chosen: Entry | null): Candidate[] {
-  return entries.map((e) => {
+/** The screened neighbours that were never fitted jointly. */
+function screenedOnly(screened: Map<string, Screened>, cache: Map<string, Entry>): Screened[] {
+  const out: Screened[] = [];
+  for (const [key, x] of screened) if (!cache.has(key)) out.push(x);
+  return out;
+}
+
+function recordOf(entries: Entry[], chosen: Entry | null, screened: Screened[] = []): Candidate[] {
+  const joint = entries.map((e) => {
     const c: Candidate = {
       order: { p: e.p, d: e.fit?.order.d ?? 0, q: e.q },
       seasonalHarmonics: e.k,
@@ -370,13 +468,26 @@ function recordOf(entries: Entry[], chosen: Entry | null): Candidate[] {
       aicc: Number.isFinite(e.aicc) ? e.aicc : null,
     };
     if (chosen && e !== chosen && Number.isFinite(e.aicc)) {
-      if (e.aicc < chosen.aicc && e.unsound) c.passedOver = e.unsound;
+      const unsound = e.aicc < chosen.aicc ? unsoundOf(e) : null;
+      if (unsound) c.passedOver = unsound;
       else if (e.aicc - chosen.aicc < NEAR_TIE && chosen.nparams < e.nparams)
         c.passedOver = `within ${NEAR_TIE} AICc of the chosen model, which has fewer parameters`;
       else if (e.aicc < chosen.aicc) c.passedOver = 'lower AICc but not reached by the search rule';
     }
     return c;
   });
+  const d = chosen?.fit?.order.d ?? entries.find((e) => e.fit)?.fit?.order.d ?? 0;
+  for (const x of screened) {
+    joint.push({
+      order: { p: x.p, d, q: x.q },
+      seasonalHarmonics: x.k,
+      includeMean: x.mean,
+      aicc: Number.isFinite(x.aicc) ? x.aicc : null,
+      aiccFrom: 'two-stage',
+      passedOver: `screened only: its two-stage AICc (an upper bound on the joint fit's) was not within ${NEAR_TIE} of the best`,
+    });
+  }
+  return joint;
 }
 
 function reasonOf(
@@ -399,7 +510,8 @@ function reasonOf(
           ? ', annual terms tried and not better by AICc'
           : `, no annual cycle (screen p = ${screen.pValue.toFixed(3)})`
         : '';
-  const sound = c.unsound ? ` (no sound candidate: ${c.unsound})` : '';
+  const unsound = unsoundOf(c);
+  const sound = unsound ? ` (no sound candidate: ${unsound})` : '';
   const dWhy = kp ? ` (${kp})` : ' (fixed)';
   return `${search} AICc search over ${tried} candidates; d = ${d}${dWhy}; chose ARIMA(${c.p},${d},${c.q})${drift}${seas}, AICc ${c.aicc.toFixed(2)}${sound}`;
 }

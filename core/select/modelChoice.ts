@@ -15,6 +15,12 @@ export interface Candidate {
   includeMean: boolean;
   /** null when the fit failed or gave no finite AICc. */
   aicc: number | null;
+  /**
+   * 'two-stage' when the candidate was only screened (the walk with annual terms): its AICc is from
+   * the ARMA part fitted to the series less the neighbouring model's regression, an upper bound on
+   * the AICc of its joint fit. Absent for jointly fitted candidates.
+   */
+  aiccFrom?: 'two-stage';
   /** Why this candidate was not chosen although its AICc was lower or within 0.1 of the winner's. */
   passedOver?: string;
 }
