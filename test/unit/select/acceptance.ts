@@ -3,6 +3,7 @@
  * (full) benchmark: interval calibration, the seasonal decision, and robustness on awkward series.
  */
 import quantile from '@stdlib/stats-base-dists-normal-quantile';
+import { psiWeights } from '../../../core/arma/psi';
 import { createRng } from '../../../core/arma/random';
 import { simulateArma } from '../../../core/arma/simulate';
 import { mase, naiveScale } from '../../../core/backtest/metrics';
@@ -20,6 +21,37 @@ export interface Calibration {
   cover1_95: number;
   cover4_80: number;
   cover4_95: number;
+  /**
+   * The same coverages for the true model on the same held-out values: its innovations ε (recovered
+   * from the simulated series with the true coefficients) against ±z·σ, and Σ_{j<4} ψ_j ε_{n+3−j}
+   * against ±z·σ·(Σ ψ_j²)^{1/2} for 4 steps (Box, Jenkins & Reinsel, ch. 5). Any model fitted to the
+   * data is measured against this: it is what perfect knowledge of the process would cover on these
+   * draws (binomial sampling error √(c(1 − c)/series), about 1 point at 95% on 500 series).
+   */
+  oracle1_80: number;
+  oracle1_95: number;
+  oracle4_80: number;
+  oracle4_95: number;
+  /** Series where the choice differenced (d ≥ 1) although every simulated series is stationary. */
+  differenced: number;
+  /** 1-step 95% coverage on those. */
+  differencedCover1_95: number;
+}
+
+/**
+ * One-step innovations of the true ARMA model over y (ma-minus form), started from zero errors at
+ * the first point: with every MA root modulus ≥ 1.25 the start-up error has decayed by 1.25^−100 by
+ * the first held-out week (n ≥ 104).
+ */
+function trueInnovations(y: Float64Array, model: { ar: number[]; ma: number[]; mean: number }): Float64Array {
+  const e = new Float64Array(y.length);
+  for (let t = 0; t < y.length; t++) {
+    let v = y[t] - model.mean;
+    for (let i = 1; i <= model.ar.length && i <= t; i++) v -= model.ar[i - 1] * (y[t - i] - model.mean);
+    for (let j = 1; j <= model.ma.length && j <= t; j++) v += model.ma[j - 1] * e[t - j];
+    e[t] = v;
+  }
+  return e;
 }
 
 /** Fit on n weeks of a random ARMA series, check the 1- and 4-step intervals on held-out weeks. */
@@ -29,6 +61,12 @@ export function calibration(count: number, seed: number): Calibration {
   let c195 = 0;
   let c480 = 0;
   let c495 = 0;
+  let o180 = 0;
+  let o195 = 0;
+  let o480 = 0;
+  let o495 = 0;
+  let diffd = 0;
+  let diffd195 = 0;
   for (let i = 0; i < count; i++) {
     const model = randomArmaModel(rng);
     const n = 104 + Math.floor(rng.uniform() * 157);
@@ -41,6 +79,24 @@ export function calibration(count: number, seed: number): Calibration {
     if (e1 <= Z95 * f.se[0]) c195++;
     if (e4 <= Z80 * f.se[3]) c480++;
     if (e4 <= Z95 * f.se[3]) c495++;
+    if (c.order.d > 0) {
+      diffd++;
+      if (e1 <= Z95 * f.se[0]) diffd195++;
+    }
+    const eps = trueInnovations(y, model);
+    const psi = psiWeights(model.ar, model.ma, 4);
+    const sd = Math.sqrt(model.sigma2);
+    let t4 = 0;
+    let v4 = 0;
+    for (let j = 0; j < 4; j++) {
+      t4 += psi[j] * eps[n + 3 - j];
+      v4 += psi[j] * psi[j];
+    }
+    const sd4 = sd * Math.sqrt(v4);
+    if (Math.abs(eps[n]) <= Z80 * sd) o180++;
+    if (Math.abs(eps[n]) <= Z95 * sd) o195++;
+    if (Math.abs(t4) <= Z80 * sd4) o480++;
+    if (Math.abs(t4) <= Z95 * sd4) o495++;
   }
   return {
     series: count,
@@ -48,6 +104,12 @@ export function calibration(count: number, seed: number): Calibration {
     cover1_95: c195 / count,
     cover4_80: c480 / count,
     cover4_95: c495 / count,
+    oracle1_80: o180 / count,
+    oracle1_95: o195 / count,
+    oracle4_80: o480 / count,
+    oracle4_95: o495 / count,
+    differenced: diffd,
+    differencedCover1_95: diffd > 0 ? diffd195 / diffd : Number.NaN,
   };
 }
 
