@@ -41,6 +41,8 @@ export async function fitFilesOnCores(
   options: FitCommandOptions,
   out: FitOutput,
   threads = fitThreads(files.length),
+  /** The workers' module (tests put a stand-in here); default the bundled fit-worker. */
+  workerEntry?: URL,
 ): Promise<number> {
   const n = files.length;
   const counter = new SharedArrayBuffer(4);
@@ -65,7 +67,7 @@ export async function fitFilesOnCores(
     results[msg.index] =
       'outcome' in msg ? msg.outcome : { error: `${files[msg.index]}: the fit failed (${msg.crash})` };
   };
-  const entry = threads > 1 ? await fitWorkerEntry() : null;
+  const entry = threads > 1 ? (workerEntry ?? (await fitWorkerEntry())) : null;
   for (let w = 1; entry && w < threads; w++) {
     const { port1, port2 } = new MessageChannel();
     const data: FitWorkerData = { counter, port: port2, files, options };

@@ -4,13 +4,13 @@
  * the exit code, the other files still fitted.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { FitWorkerData, FitWorkerMessage } from '../../app/cli/fit-parallel';
-import { PARALLEL_FROM } from '../../app/cli/fit-parallel';
+import { fitFilesOnCores, PARALLEL_FROM } from '../../app/cli/fit-parallel';
 import { bundleIsCurrent, fitWorkerEntry } from '../../app/cli/fit-worker-entry';
 import { startTsWorker } from '../../app/run/tsWorker';
 import { createRng, simulateArma } from '../../core/arma';
@@ -104,6 +104,40 @@ describe('fit on several threads', () => {
     );
     expect(got.filter((m) => 'outcome' in m && 'line' in m.outcome).length).toBe(34);
   }, 30_000);
+
+  it('a file taken by a worker that died is fitted by the command itself', async () => {
+    const options = {
+      order: { p: 1, d: 0, q: 1 },
+      includeMean: undefined,
+      horizon: 4,
+      dateColumn: 'week',
+      valueColumn: 'qty',
+      search: 'stepwise' as const,
+      backtest: false,
+      threads: null,
+    };
+    const lines: string[] = [];
+    const errors: string[] = [];
+    // Ten rounds of the files, so that the command's thread is still busy when the workers start.
+    const many = Array.from({ length: 10 }, () => files).flat();
+    const note = join(dir, 'lost.txt');
+    process.env.FIT_WORKER_DIES_NOTE = note;
+    const failed = await fitFilesOnCores(
+      many,
+      options,
+      { line: (t) => lines.push(t), error: (t) => errors.push(t) },
+      3,
+      new URL('./fixtures/fit-worker-dies.mjs', import.meta.url),
+    );
+    delete process.env.FIT_WORKER_DIES_NOTE;
+    // Both stand-ins took a file each before dying, and the command fitted those too.
+    const lost = readFileSync(note, 'utf8').trim().split('\n').map(Number);
+    expect(lost.length).toBe(2);
+    expect(lost.every((i) => i >= 0 && i < many.length)).toBe(true);
+    expect(failed).toBe(20);
+    expect(lines.map((l) => JSON.parse(l).file)).toEqual(many.filter((_, i) => !BAD.has(i % files.length)));
+    expect(errors.length).toBe(20);
+  }, 60_000);
 
   it('the bundle counts as current only while every input keeps its size and modification time', () => {
     const input = join(dir, 'input.ts');
