@@ -164,7 +164,7 @@ export function makeFlag(code: ModelCheckCode, facts: Record<string, number | st
       return {
         code,
         severity: 'info',
-        reason: `Demand is ${f.demandClass}: one week in ${num(Number(f.adi), 2)} has an order (ADI ${num(Number(f.adi), 3)}, CV² ${num(Number(f.cv2), 2)}), so a method for sparse demand (SBA) is used instead of ARMA.`,
+        reason: `Demand is ${f.demandClass}: one week in ${num(Number(f.adi), 2)} has an order (ADI ${num(Number(f.adi), 3)}, CV² ${num(Number(f.cv2), 2)}), so a method for sparse demand (SBA or TSB) is used instead of ARMA.`,
         action: 'Expect orders in lumps; the forecast is an average rate per week.',
       };
     case 'unsound-model':

@@ -13,9 +13,14 @@
  * (common practice: small constants, 0.05–0.3, as in the papers' own experiments).
  */
 export interface SbaState {
-  method: 'sba';
+  /** 'sba' (this file) or 'tsb' (Teunter, Syntetos & Babai 2011, tsb.ts); both keep this shape. */
+  method: 'sba' | 'tsb';
+  /** Smoothing constant of the demand sizes. */
   alpha: number;
+  /** TSB only: smoothing constant of the demand probability, updated every week. */
+  beta?: number;
   size: number;
+  /** Mean weeks between demands (for TSB 1 / the demand probability). */
   interval: number;
   /** Forecast per week. */
   forecast: number;
@@ -78,7 +83,41 @@ export function runSba(y: ArrayLike<number>, alpha: number): SbaState {
     }
   }
   if (!Number.isFinite(f)) f = meanAll; // no demand at all: forecast the (zero) mean
-  // Errors after a warm-up: from the week after the first demand.
+  return {
+    method: 'sba',
+    alpha,
+    size: Number.isFinite(z) ? z : 0,
+    interval: Number.isFinite(p) ? p : 0,
+    forecast: f,
+    fitted,
+    ...ownErrors(y, fitted, meanAll),
+  };
+}
+
+/** Observed mean of y (0 when nothing is observed). */
+export function observedMean(y: ArrayLike<number>): number {
+  let s = 0;
+  let m = 0;
+  for (let t = 0; t < y.length; t++) {
+    if (Number.isFinite(y[t])) {
+      s += y[t];
+      m++;
+    }
+  }
+  return m > 0 ? s / m : 0;
+}
+
+/**
+ * A sparse-demand method's uncertainty from its own in-sample errors: one-step errors
+ * e_t = y_t − f_{t−1} wherever a forecast exists (after the warm-up) give σ₁² = mean(e_t²); sums of
+ * k = 1…26 weeks against k times the forecast made before them give the window variances.
+ */
+export function ownErrors(
+  y: ArrayLike<number>,
+  fitted: number[],
+  meanAll: number,
+): Pick<SbaState, 'errorVariance' | 'errorCount' | 'windowErrorVariance'> {
+  const n = y.length;
   let sse = 0;
   let count = 0;
   for (let t = 0; t < n; t++) {
@@ -113,17 +152,7 @@ export function runSba(y: ArrayLike<number>, alpha: number): SbaState {
     // Overlapping windows: trust the estimate only with several independent stretches.
     windowErrorVariance.push(m >= 4 * k && m >= 8 ? s2 / m : Number.NaN);
   }
-  return {
-    method: 'sba',
-    alpha,
-    size: Number.isFinite(z) ? z : 0,
-    interval: Number.isFinite(p) ? p : 0,
-    forecast: f,
-    errorVariance,
-    errorCount: count,
-    fitted,
-    windowErrorVariance,
-  };
+  return { errorVariance, errorCount: count, windowErrorVariance };
 }
 
 function fallbackVariance(y: ArrayLike<number>, mean: number): number {

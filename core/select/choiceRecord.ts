@@ -94,6 +94,7 @@ export function choiceRecord(
       ? {
           method: choice.intermittent.method,
           alpha: choice.intermittent.alpha,
+          ...(choice.intermittent.beta !== undefined ? { beta: choice.intermittent.beta } : {}),
           size: num(choice.intermittent.size),
           interval: num(choice.intermittent.interval),
           rate: num(choice.intermittent.forecast),

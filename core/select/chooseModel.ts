@@ -1,6 +1,6 @@
 import type { ArmaFit } from '../arma/types';
 import { classifyDemand, type DemandProfile } from '../intermittent/demandClass';
-import { fitSba } from '../intermittent/sba';
+import { fitSparseDemand } from '../intermittent/sparseMethod';
 import type { ModelOrder } from '../plan/types';
 import { fitArma, minRootModulus } from './engine';
 import { fourierColumns, weekTimes } from './fourier';
@@ -10,7 +10,8 @@ import { SCREEN_LEVEL, seasonalScreen } from './seasonalScreen';
 
 /**
  * Automatic model choice for one item's weekly demand.
- * 1. Sparse demand (ADI ≥ 1.32, Syntetos, Boylan & Croston 2005) with no negative values → SBA.
+ * 1. Sparse demand (ADI ≥ 1.32, Syntetos, Boylan & Croston 2005) with no negative values → SBA
+ *    (Syntetos & Boylan 2005) or TSB (Teunter, Syntetos & Babai 2011), by one-step error.
  * 2. d ≤ 2 by repeated KPSS tests at 5% (Kwiatkowski et al. 1992); with d = 1 a drift is a candidate.
  * 3. p, q ≤ 5 and p + q ≤ 5 by AICc (Hurvich & Tsai 1989), either a stepwise walk — start from (0,0), (1,0),
  *    (0,1), (1,1) and move one step in p or in q while the best model changes (with d = 1 the
@@ -113,8 +114,12 @@ export function chooseModel(
 
   const sparse = demand.demandClass === 'intermittent' || demand.demandClass === 'lumpy';
   if (sparse && nonNegative && demand.demandWeeks > 0) {
-    const sba = fitSba(series);
+    const sparseFit = fitSparseDemand(series);
+    const sba = sparseFit.chosen;
     const fitted = sba.fitted.slice();
+    const name =
+      sba.method === 'tsb' ? `TSB with α = ${sba.alpha}, β = ${sba.beta}` : `SBA with α = ${sba.alpha}`;
+    const mse = (v: number): string => v.toPrecision(4);
     return {
       ...base,
       kind: 'intermittent',
@@ -127,7 +132,7 @@ export function chooseModel(
       selection: {
         search: 'none',
         candidates: [],
-        reason: `demand is ${demand.demandClass} (ADI ${demand.adi.toFixed(2)} ≥ 1.32, CV² ${demand.cv2.toFixed(2)}): SBA with α = ${sba.alpha}, chosen by in-sample one-step error`,
+        reason: `demand is ${demand.demandClass} (ADI ${demand.adi.toFixed(2)} ≥ 1.32, CV² ${demand.cv2.toFixed(2)}): ${name}, chosen by in-sample one-step mean squared error (SBA ${mse(sparseFit.sba.errorVariance)}, TSB ${mse(sparseFit.tsb.errorVariance)})`,
       },
       differencing: [],
       fitted,
