@@ -229,12 +229,12 @@ export function chooseModel(
 
   const screened = new Map<string, Screened>();
   /**
-   * Two-stage AICc of ARMA(p,q) with k harmonic pairs: the regression coefficients held at those of
-   * `from` (a joint fit with the same k), the ARMA part, mean and σ² fitted to y − Xβ. Holding β at
-   * any value gives a likelihood no higher than the joint maximum, so with the same parameter count
-   * (β counted) this AICc is an upper bound on the joint fit's.
+   * Two-stage AICc of ARMA(p,q) with k harmonic pairs: the regression coefficients held at β (those
+   * of a neighbouring joint fit), the ARMA part, mean and σ² fitted to y − Xβ. Holding β at any value
+   * gives a likelihood no higher than the joint maximum, so with the same parameter count (β counted)
+   * this AICc is an upper bound on the joint fit's.
    */
-  const screenOne = (p: number, q: number, k: number, mean: boolean, from: Entry): number => {
+  const screenOne = (p: number, q: number, k: number, mean: boolean, beta: number[]): number => {
     if (p < 0 || q < 0 || p > maxOrder || q > maxOrder || p + q > maxTotal) return Number.POSITIVE_INFINITY;
     const nparams = p + q + (mean ? 1 : 0) + 2 * k + 1;
     if (nparams > maxParams) return Number.POSITIVE_INFINITY;
@@ -243,7 +243,6 @@ export function chooseModel(
     if (joint) return joint.aicc;
     const seen = screened.get(key);
     if (seen) return seen.aicc;
-    const beta = from.fit?.xregCoef ?? [];
     let aicc = Number.POSITIVE_INFINITY;
     if (beta.length === 2 * k) {
       const u = new Float64Array(n);
@@ -299,7 +298,8 @@ export function chooseModel(
         // those whose bound comes within the near-tie margin of the best are fitted jointly.
         const bestNow = pick(order.filter((e) => e.k === k));
         const bar = (bestNow ? bestNow.aicc : Number.POSITIVE_INFINITY) + NEAR_TIE;
-        const bounds = steps.map(([a, b]) => ({ a, b, aicc: screenOne(a, b, k, mean, current as Entry) }));
+        const beta = current.fit?.xregCoef ?? [];
+        const bounds = steps.map(([a, b]) => ({ a, b, aicc: screenOne(a, b, k, mean, beta) }));
         bounds.sort((x, y) => x.aicc - y.aicc);
         for (const x of bounds) if (x.aicc < bar) fitOne(x.a, x.b, k, mean);
       }
@@ -327,6 +327,15 @@ export function chooseModel(
       // grid search tries every K.
       let bestK = c.aicc;
       for (let k = 1; k <= maxK; k++) {
+        const prev =
+          k >= 3 && search !== 'grid' ? cache.get(`${c.p},${c.q},${k - 1},${c.mean ? 1 : 0}`) : undefined;
+        if (prev?.fit) {
+          // From the third pair on, a pair is fitted jointly only if its two-stage bound (the pairs so
+          // far held where the joint fit with k − 1 has them, the new pair by least squares on what
+          // they leave) comes within the near tie of the best: otherwise the walk over K stops here.
+          const bound = screenOne(c.p, c.q, k, c.mean, extendedCoefficients(series, allFourier, prev.fit, k));
+          if (!(bound < bestK + NEAR_TIE)) break;
+        }
         const e = fitOne(c.p, c.q, k, c.mean);
         if (!e) break;
         if (search !== 'grid' && k >= 2 && !(e.aicc < bestK)) break;
@@ -381,6 +390,36 @@ export function chooseModel(
     residuals: residualsOf(series, fitted),
     seasonalScreen: screen,
   };
+}
+
+/**
+ * Regression coefficients for k harmonic pairs from a joint fit with k − 1: the fit's own, then the
+ * least-squares coefficients of pair k (columns 2k − 2 and 2k − 1) on what the fit's regression and
+ * mean leave of y (2 × 2 normal equations over the observed weeks; zeros if they are singular).
+ */
+function extendedCoefficients(y: Float64Array, columns: Float64Array[], fit: ArmaFit, k: number): number[] {
+  const beta = fit.xregCoef.slice(0, 2 * (k - 1));
+  const a = columns[2 * k - 2];
+  const b = columns[2 * k - 1];
+  const level = fit.mean ?? 0;
+  let saa = 0;
+  let sab = 0;
+  let sbb = 0;
+  let sar = 0;
+  let sbr = 0;
+  for (let i = 0; i < y.length; i++) {
+    if (!Number.isFinite(y[i])) continue;
+    let r = y[i] - level;
+    for (let j = 0; j < beta.length; j++) r -= beta[j] * columns[j][i];
+    saa += a[i] * a[i];
+    sab += a[i] * b[i];
+    sbb += b[i] * b[i];
+    sar += a[i] * r;
+    sbr += b[i] * r;
+  }
+  const det = saa * sbb - sab * sab;
+  if (!(Math.abs(det) > 1e-12 * (saa * sbb + 1e-300))) return [...beta, 0, 0];
+  return [...beta, (sbb * sar - sab * sbr) / det, (saa * sbr - sab * sar) / det];
 }
 
 /** Refit a candidate from every start of the engine's search; keep the refit when it is better. */
