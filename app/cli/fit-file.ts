@@ -1,7 +1,6 @@
 /**
  * One file of the `fit` command: read the weekly series, choose or fit the model, and return its
- * JSON line, or the input error (with file, line and field) when the file cannot be read. The same
- * function runs in the command's own thread and in its worker threads (fit-parallel.ts).
+ * JSON line, or the input error (with file, line and field) when the file cannot be read.
  */
 import { choiceRecord } from '../../core/select/choiceRecord';
 import type { FitCommandOptions } from './fit';

@@ -1,16 +1,14 @@
 /**
  * `fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H]
- *      [--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest] [--threads N]`
+ *      [--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest]`
  * Fits an ARIMA model to each weekly series and prints one JSON object per file per line (JSON
  * Lines). Without --order the model is chosen automatically (core/select: order, differencing,
  * annual terms, sparse-demand method), with diagnostics, flags and, on request, a backtest.
- * All files are fitted in this one process (the JIT warms up once), from 64 files on with one
- * worker thread per further core (fit-parallel.ts; --threads N to use fewer); lines come out in
- * the order the files were given either way. A file that cannot be read is reported on stderr with
- * its line and field; the other files are still fitted, and the exit code is 1.
+ * All files are fitted in this one process, one after another (the JIT warms up once). A file
+ * that cannot be read is reported on stderr with its line and field; the other files are still
+ * fitted, and the exit code is 1.
  */
 import { fitFile } from './fit-file';
-import { fitFilesOnCores, fitThreads } from './fit-parallel';
 
 export interface FitCommandOptions {
   order: { p: number; d: number; q: number } | null;
@@ -22,13 +20,11 @@ export interface FitCommandOptions {
   search: 'stepwise' | 'grid';
   /** --backtest: add a rolling-origin backtest over the last 26 weeks to each line. */
   backtest: boolean;
-  /** --threads N: at most N threads (default: one per core from 64 files on). */
-  threads: number | null;
 }
 
 const USAGE =
   'usage: npm run -s cli -- fit FILE.csv [FILE.csv …] [--order p,d,q] [--no-mean] [--horizon H] ' +
-  '[--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest] [--threads N]\n';
+  '[--date-column NAME] [--value-column NAME] [--search stepwise|grid] [--backtest]\n';
 
 class UsageError extends Error {}
 
@@ -42,7 +38,6 @@ export function parseFitArgs(args: string[]): { files: string[]; options: FitCom
     valueColumn: 'qty',
     search: 'stepwise',
     backtest: false,
-    threads: null,
   };
   const value = (i: number, name: string): string => {
     const v = args[i + 1];
@@ -78,14 +73,7 @@ export function parseFitArgs(args: string[]): { files: string[]; options: FitCom
         throw new UsageError(`--search '${text}' must be stepwise or grid`);
       options.search = text;
     } else if (a === '--backtest') options.backtest = true;
-    else if (a === '--threads') {
-      const text = value(i++, a);
-      const t = Number(text);
-      if (!Number.isInteger(t) || t < 1 || t > 64) {
-        throw new UsageError(`--threads '${text}' must be a whole number from 1 to 64`);
-      }
-      options.threads = t;
-    } else if (a.startsWith('--')) throw new UsageError(`unknown option '${a}'`);
+    else if (a.startsWith('--')) throw new UsageError(`unknown option '${a}'`);
     else files.push(a);
   }
   if (files.length === 0) throw new UsageError('no CSV file given');
@@ -109,7 +97,6 @@ export default async function fit(args: string[]): Promise<number> {
     if (out.length) process.stdout.write(`${out.join('\n')}\n`);
     out = [];
   };
-  const threads = Math.min(options.threads ?? Number.POSITIVE_INFINITY, fitThreads(files.length));
   const write = {
     line: (text: string) => {
       out.push(text);
@@ -121,15 +108,12 @@ export default async function fit(args: string[]): Promise<number> {
     },
   };
   let failed = 0;
-  if (threads > 1) failed = await fitFilesOnCores(files, options, write, threads);
-  else {
-    for (const file of files) {
-      const outcome = fitFile({ file, options });
-      if ('line' in outcome) write.line(outcome.line);
-      else {
-        write.error(outcome.error);
-        failed++;
-      }
+  for (const file of files) {
+    const outcome = fitFile({ file, options });
+    if ('line' in outcome) write.line(outcome.line);
+    else {
+      write.error(outcome.error);
+      failed++;
     }
   }
   flush();

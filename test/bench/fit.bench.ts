@@ -2,8 +2,7 @@
  * Speed of `fit` end to end through the CLI (issue 2, acceptance 4): for ARMA(2,0,2) and
  * ARMA(1,0,1), 1,000 simulated 156-week CSV files fitted in one call, minus the same call on one
  * file, divided by 999 — reading, fitting, standard errors, 12-step forecasts and output included —
- * as the command runs by default (one thread per core) and on one thread (--threads 1), with the CPU
- * time of all threads where /usr/bin/time is installed (the lines of both must be identical).
+ * with the CPU time of the process where /usr/bin/time is installed.
  * Where Rscript is installed, base R's stats::arima(method = "ML") is timed in a plain loop over the
  * same series (test/bench/fit-arima.R), and the share of series where our log-likelihood is at
  * least R's − 1e-6 is printed. Each timing is the fastest of a few runs (the machine is shared).
@@ -12,7 +11,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { availableParallelism, tmpdir } from 'node:os';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createRng, fitArma, simulateArma } from '../../core/arma';
 import { ArmaLikelihood } from '../../core/arma/kalmanLikelihood';
@@ -106,12 +105,8 @@ function inProcess(series: Float64Array[], p: number, q: number): string {
 const timeBin = '/usr/bin/time';
 const haveTime = spawnSync(timeBin, ['-f', '%U', 'true'], { encoding: 'utf8' }).status === 0;
 
-/** One CLI call: wall seconds, and CPU seconds of the whole process (all threads) where /usr/bin/time is installed. */
-function timeCli(
-  files: string[],
-  order: string,
-  threads: number | null,
-): { seconds: number; cpu: number; stdout: string } {
+/** One CLI call: wall seconds, and CPU seconds of the process where /usr/bin/time is installed. */
+function timeCli(files: string[], order: string): { seconds: number; cpu: number; stdout: string } {
   const cli = [
     process.execPath,
     '--import',
@@ -121,7 +116,6 @@ function timeCli(
     ...files,
     '--order',
     order,
-    ...(threads ? ['--threads', String(threads)] : []),
   ];
   const cpuFile = join(tmpdir(), `provision-fit-bench-cpu-${process.pid}.txt`);
   const [cmd, ...args] = haveTime ? [timeBin, '-f', '%U %S', '-o', cpuFile, ...cli] : cli;
@@ -170,36 +164,27 @@ try {
     const dir = join(base, `arma${p}${q}`);
     mkdirSync(dir);
     const { files, series } = writeSeries(dir, p, q, seed);
-    // Ours (every core, the default, and one thread) and R alternate, so all see the same (shared,
-    // noisy) machine; per setting the fastest run counts.
-    const settings = [
-      { label: `${availableParallelism()} threads (default)`, threads: null as number | null },
-      { label: '1 thread', threads: 1 },
-    ];
-    const best = settings.map(() => ({
+    // Ours and R alternate, so both see the same (shared, noisy) machine; the fastest run counts.
+    const b = {
       one: Number.POSITIVE_INFINITY,
       many: Number.POSITIVE_INFINITY,
       cpu: Number.POSITIVE_INFINITY,
       oneCpu: Number.POSITIVE_INFINITY,
       runs: [] as number[],
-    }));
+    };
     let out = '';
     let rBest: { ms: number; ll: string[] } | null = null;
     const rRuns: number[] = [];
     let rError = '';
     for (let r = 0; r < REPEATS; r++) {
-      settings.forEach((set, k) => {
-        const one = timeCli(files.slice(0, 1), order, set.threads);
-        const many = timeCli(files, order, set.threads);
-        const b = best[k];
-        b.one = Math.min(b.one, one.seconds);
-        b.many = Math.min(b.many, many.seconds);
-        b.oneCpu = Math.min(b.oneCpu, one.cpu);
-        b.cpu = Math.min(b.cpu, many.cpu);
-        b.runs.push(((many.seconds - one.seconds) / (FILES - 1)) * 1000);
-        if (k === 0) out = many.stdout;
-        else if (many.stdout !== out) throw new Error('fit printed different lines on one thread');
-      });
+      const one = timeCli(files.slice(0, 1), order);
+      const many = timeCli(files, order);
+      b.one = Math.min(b.one, one.seconds);
+      b.many = Math.min(b.many, many.seconds);
+      b.oneCpu = Math.min(b.oneCpu, one.cpu);
+      b.cpu = Math.min(b.cpu, many.cpu);
+      b.runs.push(((many.seconds - one.seconds) / (FILES - 1)) * 1000);
+      out = many.stdout;
       if (haveR) {
         const res = timeR(files, p, q, dir);
         if (typeof res === 'string') rError = res;
@@ -209,27 +194,20 @@ try {
         }
       }
     }
-    const perFile = (b: (typeof best)[number]) => ((b.many - b.one) / (FILES - 1)) * 1000;
-    const cpuPerFile = (b: (typeof best)[number]) => ((b.cpu - b.oneCpu) / (FILES - 1)) * 1000;
-    const ours = perFile(best[0]);
+    const ours = ((b.many - b.one) / (FILES - 1)) * 1000;
+    const oursCpu = ((b.cpu - b.oneCpu) / (FILES - 1)) * 1000;
     const records = out
       .trim()
       .split('\n')
       .map((l) => JSON.parse(l) as { loglik: number | null; converged: boolean; flags: string[] });
     const notConverged = records.filter((r) => !r.converged).length;
-    process.stdout.write(`ARMA(${order}) ${FILES} files x ${WEEKS} weeks, not converged ${notConverged}:\n`);
-    settings.forEach((set, k) => {
-      const b = best[k];
-      process.stdout.write(
-        `  ours, ${set.label}: ${perFile(b).toFixed(3)} ms per file wall` +
-          (haveTime ? `, ${cpuPerFile(b).toFixed(3)} ms CPU per file (all threads)` : '') +
-          ` (one call ${b.many.toFixed(2)} s, one-file call ${b.one.toFixed(2)} s; runs: ${b.runs
-            .map((v) => v.toFixed(3))
-            .join(', ')} ms)` +
-          (rBest ? `; ours / R = ${(perFile(b) / rBest.ms).toFixed(3)}` : '') +
-          '\n',
-      );
-    });
+    process.stdout.write(
+      `ARMA(${order}) ${FILES} files x ${WEEKS} weeks: ours ${ours.toFixed(3)} ms per file wall` +
+        (haveTime ? `, ${oursCpu.toFixed(3)} ms CPU per file` : '') +
+        ` (one call ${b.many.toFixed(2)} s, one-file call ${b.one.toFixed(2)} s; runs: ${b.runs
+          .map((v) => v.toFixed(3))
+          .join(', ')} ms); not converged ${notConverged}\n`,
+    );
     if (haveR && !rBest) {
       process.stdout.write(`  base R failed: ${rError}\n`);
     } else if (rBest) {
@@ -261,7 +239,7 @@ try {
         `  base R arima(method = "ML") ${rMs.toFixed(3)} ms per fit (plain loop, same series; runs: ${rRuns
           .map((v) => v.toFixed(3))
           .join(', ')} ms); ` +
-          `ours (default) / R = ${(ours / rMs).toFixed(3)}; our loglik >= R's - 1e-6 on ${atLeast}/${compared} ` +
+          `ours / R = ${(ours / rMs).toFixed(3)}; our loglik >= R's - 1e-6 on ${atLeast}/${compared} ` +
           `(${((100 * atLeast) / compared).toFixed(1)}%), higher by > 1e-3 on ${above}; ` +
           `largest shortfall ${(-worst).toExponential(2)}${worstAt >= 0 ? ` (${files[worstAt]})` : ''}\n`,
       );
