@@ -352,7 +352,10 @@ function summariseModel(choice: ModelChoice): ModelSummary {
     const s = choice.intermittent;
     return {
       kind: 'intermittent',
-      label: `SBA (Syntetos & Boylan 2005), α = ${s.alpha}`,
+      label:
+        s.method === 'tsb'
+          ? `TSB (Teunter, Syntetos & Babai 2011), α = ${s.alpha}, β = ${s.beta}`
+          : `SBA (Syntetos & Boylan 2005), α = ${s.alpha}`,
       ...base,
       ar: [],
       ma: [],

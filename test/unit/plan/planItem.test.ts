@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { psiWeights } from '../../../core/arma/psi';
 import { simulateArma } from '../../../core/arma/simulate';
+import { fitSparseDemand } from '../../../core/intermittent/sparseMethod';
 import { type PlanItemInput, planItem } from '../../../core/plan/planItem';
 import { DEFAULT_WORKSPACE, type ItemSettings } from '../../../core/plan/types';
 import { chooseModel } from '../../../core/select/chooseModel';
@@ -179,6 +180,13 @@ describe('planItem end to end', () => {
     expect(plan.order.varianceSource).toBe('intermittent-method');
     expect(plan.order.explanation).toMatch(/sparse-demand method’s own one-step errors/);
     expect(plan.order.orderQty).toBeGreaterThan(0);
+    // The label names the method the choice kept (the smaller in-sample one-step error), with its constants.
+    const { chosen } = fitSparseDemand(qty);
+    expect(plan.model.label).toBe(
+      chosen.method === 'tsb'
+        ? `TSB (Teunter, Syntetos & Babai 2011), α = ${chosen.alpha}, β = ${chosen.beta}`
+        : `SBA (Syntetos & Boylan 2005), α = ${chosen.alpha}`,
+    );
   });
 
   it('shelf life and MOQ end to end: the cap bites and the line is flagged for review', () => {
