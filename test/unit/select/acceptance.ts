@@ -2,6 +2,7 @@
  * The measured acceptance figures of the selection issue, shared by the (light) unit tests and the
  * (full) benchmark: interval calibration, the seasonal decision, and robustness on awkward series.
  */
+import cdf from '@stdlib/stats-base-dists-normal-cdf';
 import quantile from '@stdlib/stats-base-dists-normal-quantile';
 import { psiWeights } from '../../../core/arma/psi';
 import { createRng } from '../../../core/arma/random';
@@ -32,6 +33,20 @@ export interface Calibration {
   oracle1_95: number;
   oracle4_80: number;
   oracle4_95: number;
+  /**
+   * The same coverages as probabilities instead of one draw per series: given the history, the
+   * held-out value is normal with the true model's conditional mean (held-out value less its
+   * unpredictable part, Σ_{j<h} ψ_j ε) and s.d. σ(Σ_{j<h} ψ_j²)^{1/2}, so the chance that the chosen
+   * model's interval [f − z·se, f + z·se] covers it is Φ((f + z·se − m)/s) − Φ((f − z·se − m)/s),
+   * averaged over the series. Conditional Monte Carlo (Rao–Blackwellisation; e.g. Ross,
+   * "Simulation", 5th ed., §9.4): the same quantity as the draw-based figure with the held-out
+   * noise integrated out, so what is left is the models' own error. The true model scores exactly
+   * the nominal level on it.
+   */
+  exact1_80: number;
+  exact1_95: number;
+  exact4_80: number;
+  exact4_95: number;
   /** Series where the choice differenced (d ≥ 1) although every simulated series is stationary. */
   differenced: number;
   /** 1-step 95% coverage on those. */
@@ -67,6 +82,12 @@ export function calibration(count: number, seed: number): Calibration {
   let o495 = 0;
   let diffd = 0;
   let diffd195 = 0;
+  let x180 = 0;
+  let x195 = 0;
+  let x480 = 0;
+  let x495 = 0;
+  const inside = (f: number, se: number, z: number, m: number, s: number) =>
+    cdf((f + z * se - m) / s, 0, 1) - cdf((f - z * se - m) / s, 0, 1);
   for (let i = 0; i < count; i++) {
     const model = randomArmaModel(rng);
     const n = 104 + Math.floor(rng.uniform() * 157);
@@ -97,6 +118,12 @@ export function calibration(count: number, seed: number): Calibration {
     if (Math.abs(eps[n]) <= Z95 * sd) o195++;
     if (Math.abs(t4) <= Z80 * sd4) o480++;
     if (Math.abs(t4) <= Z95 * sd4) o495++;
+    const m1 = y[n] - eps[n];
+    const m4 = y[n + 3] - t4;
+    x180 += inside(f.mean[0], f.se[0], Z80, m1, sd);
+    x195 += inside(f.mean[0], f.se[0], Z95, m1, sd);
+    x480 += inside(f.mean[3], f.se[3], Z80, m4, sd4);
+    x495 += inside(f.mean[3], f.se[3], Z95, m4, sd4);
   }
   return {
     series: count,
@@ -108,6 +135,10 @@ export function calibration(count: number, seed: number): Calibration {
     oracle1_95: o195 / count,
     oracle4_80: o480 / count,
     oracle4_95: o495 / count,
+    exact1_80: x180 / count,
+    exact1_95: x195 / count,
+    exact4_80: x480 / count,
+    exact4_95: x495 / count,
     differenced: diffd,
     differencedCover1_95: diffd > 0 ? diffd195 / diffd : Number.NaN,
   };
