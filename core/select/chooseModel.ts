@@ -295,7 +295,10 @@ export function chooseModel(
         // With annual terms each joint fit filters every regressor column at every likelihood
         // evaluation (several times the cost of a fit without them). The neighbours are screened
         // first by a two-stage fit with the regression held where the current model has it; only
-        // those whose bound comes within the near-tie margin of the best are fitted jointly.
+        // those whose bound comes within the near-tie margin of the best are fitted jointly. This is
+        // a heuristic, not a proof: the bound is from above, so a neighbour screened out could have
+        // done better jointly. Measured on the seasonal bench (100 cycle series): annual terms
+        // chosen on 97 instead of 98, 13-week MASE 1.108 instead of 1.095; chooseModel 13.3 → 8.5 ms.
         const bestNow = pick(order.filter((e) => e.k === k));
         const bar = (bestNow ? bestNow.aicc : Number.POSITIVE_INFINITY) + NEAR_TIE;
         const beta = current.fit?.xregCoef ?? [];
