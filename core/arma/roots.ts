@@ -24,8 +24,39 @@ export function polynomialRoots(coef: ArrayLike<number>): ComplexRoot[] {
   return out;
 }
 
-/** Moduli of every root, ascending; a root at infinity counts as +∞. */
+/**
+ * Moduli of every root, ascending; a root at infinity counts as +∞. Degrees 1 and 2 (trailing zeros
+ * dropped) — most fitted AR and MA parts, asked for by every candidate of the order search — in
+ * closed form: for k = 2, λ = (c_1 ± √(c_1² + 4c_2))/2, a complex pair of modulus √(−c_2) when
+ * c_1² + 4c_2 < 0 (the larger |λ| without cancellation, the other from λ_1 λ_2 = −c_2); higher
+ * degrees from the companion matrix's eigenvalues.
+ */
 export function polynomialRootModuli(coef: ArrayLike<number>): number[] {
+  let k = coef.length;
+  while (k > 0 && coef[k - 1] === 0) k--;
+  if (k <= 2) {
+    for (let j = 0; j < k; j++) if (!Number.isFinite(coef[j])) return [];
+    if (k === 0) return [];
+    const inv = (lambda: number): number => (lambda === 0 ? Number.POSITIVE_INFINITY : 1 / lambda);
+    if (k === 1) return [inv(Math.abs(coef[0]))];
+    const c1 = coef[0];
+    const c2 = coef[1];
+    const disc = c1 * c1 + 4 * c2;
+    if (disc < 0) {
+      const m = inv(Math.sqrt(-c2));
+      return [m, m];
+    }
+    const big = (c1 + (c1 >= 0 ? 1 : -1) * Math.sqrt(disc)) / 2;
+    const small = big === 0 ? 0 : -c2 / big;
+    const a = inv(Math.abs(big));
+    const b = inv(Math.abs(small));
+    return a <= b ? [a, b] : [b, a];
+  }
+  return eigenRootModuli(coef);
+}
+
+/** polynomialRootModuli from the companion matrix's eigenvalues for every degree (the reference). */
+export function eigenRootModuli(coef: ArrayLike<number>): number[] {
   return companionEigenvalues(coef)
     .map(({ re, im }) => {
       const mod = Math.hypot(re, im);

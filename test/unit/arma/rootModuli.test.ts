@@ -1,11 +1,11 @@
 /**
- * The closed-form root moduli for AR/MA parts of degree 1 and 2 (core/select/engine.ts) against the
- * engine's companion-matrix eigenvalues (core/arma/roots.ts), which remain the reference.
+ * The closed-form root moduli for AR/MA parts of degree 1 and 2 (core/arma/roots.ts,
+ * polynomialRootModuli) against the companion-matrix eigenvalues (eigenRootModuli, the reference).
  */
 import { describe, expect, it } from 'vitest';
 import { createRng } from '../../../core/arma/random';
-import { polynomialRootModuli as companion } from '../../../core/arma/roots';
-import { minRootModulus, polynomialRootModuli } from '../../../core/select/engine';
+import { eigenRootModuli as companion, polynomialRootModuli } from '../../../core/arma/roots';
+import { minRootModulus } from '../../../core/select/engine';
 
 describe('polynomialRootModuli (closed form for degree ≤ 2)', () => {
   it('agrees with the companion-matrix eigenvalues to 1e-12 on 4,000 random polynomials', () => {
@@ -29,7 +29,7 @@ describe('polynomialRootModuli (closed form for degree ≤ 2)', () => {
     expect(polynomialRootModuli([1, -0.25])[1]).toBeCloseTo(2, 12);
     // 1 + 0.64 z²: complex pair of modulus 1/0.8 = 1.25.
     expect(minRootModulus([0, -0.64])).toBeCloseTo(1.25, 12);
-    // Degree 3 goes to the engine: (1 − 0.5z)(1 − 0.25z)(1 − 0.2z) has roots 2, 4, 5.
+    // Degree 3 goes to the eigenvalues: (1 − 0.5z)(1 − 0.25z)(1 − 0.2z) has roots 2, 4, 5.
     const c3 = [0.95, -0.275, 0.025];
     expect(polynomialRootModuli(c3).map((r) => Number(r.toFixed(10)))).toEqual([2, 4, 5]);
   });
