@@ -8,7 +8,8 @@
  * that cannot be read is reported on stderr with its line and field; the other files are still
  * fitted, and the exit code is 1.
  */
-import { fitFile } from './fit-file';
+import { choiceRecord } from '../../core/select/choiceRecord';
+import { CsvInputError, readWeeklyCsv } from './fit-csv';
 
 export interface FitCommandOptions {
   order: { p: number; d: number; q: number } | null;
@@ -92,29 +93,24 @@ export default async function fit(args: string[]): Promise<number> {
     throw err;
   }
   const { files, options } = parsed;
+  let failed = 0;
   let out: string[] = [];
   const flush = (): void => {
     if (out.length) process.stdout.write(`${out.join('\n')}\n`);
     out = [];
   };
-  const write = {
-    line: (text: string) => {
-      out.push(text);
-      if (out.length >= 256) flush();
-    },
-    error: (text: string) => {
-      flush();
-      process.stderr.write(`fit: ${text}\n`);
-    },
-  };
-  let failed = 0;
   for (const file of files) {
-    const outcome = fitFile({ file, options });
-    if ('line' in outcome) write.line(outcome.line);
-    else {
-      write.error(outcome.error);
+    try {
+      const series = readWeeklyCsv(file, options);
+      // Model choice (automatic without --order), forecast, diagnosis and flags: core/select.
+      out.push(JSON.stringify(choiceRecord(file, series.values, series.firstWeek, options)));
+    } catch (err) {
+      if (!(err instanceof CsvInputError)) throw err;
+      flush();
+      process.stderr.write(`fit: ${err.message}\n`);
       failed++;
     }
+    if (out.length >= 256) flush();
   }
   flush();
   return failed > 0 ? 1 : 0;
