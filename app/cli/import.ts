@@ -6,23 +6,11 @@
  * rejected (nothing written), 2 for a usage error.
  */
 import { existsSync } from 'node:fs';
-import { type ImportOptions, type ImportSummary, importFile } from '../import/import';
+import { type ImportOptions, type ImportSummary, importFile, rejectedImport } from '../import/import';
 import { openStore, StoreError } from '../store/store';
 
 const USAGE =
   'usage: npm run -s cli -- import FILE --store DB --kind sales|items|stock [--map column=field …] [--date-order dmy|mdy] [--decimal dot|comma] [--force] [--actor NAME]\n';
-
-function rejected(message: string): ImportSummary {
-  return {
-    status: 'rejected',
-    rowsRead: 0,
-    items: 0,
-    weeks: 0,
-    warnings: [],
-    errors: [{ line: null, column: null, value: null, message }],
-    mapping: {},
-  };
-}
 
 function finish(summary: ImportSummary): number {
   for (const [column, field] of Object.entries(summary.mapping)) {
@@ -92,12 +80,12 @@ export default async function importCommand(args: string[]): Promise<number> {
     process.stderr.write(`--kind ${kind}: use sales, items or stock\n${USAGE}`);
     return 2;
   }
-  if (!existsSync(file)) return finish(rejected(`${file}: no such file`));
+  if (!existsSync(file)) return finish(rejectedImport(`${file}: no such file`));
   let store: ReturnType<typeof openStore>;
   try {
     store = openStore(storePath, { create: true });
   } catch (err) {
-    if (err instanceof StoreError) return finish(rejected(err.message));
+    if (err instanceof StoreError) return finish(rejectedImport(err.message));
     throw err;
   }
   try {
@@ -109,7 +97,9 @@ export default async function importCommand(args: string[]): Promise<number> {
       // A fault of the machine or the store (disk full, store locked, file unreadable): the
       // transaction rolled back, so say so plainly instead of printing a stack trace.
       const why = err instanceof Error ? err.message : String(err);
-      return finish(rejected(`${file}: the import failed (${why}); nothing was written to ${storePath}`));
+      return finish(
+        rejectedImport(`${file}: the import failed (${why}); nothing was written to ${storePath}`),
+      );
     }
   } finally {
     store.close();

@@ -298,6 +298,19 @@ function wsFor(store: Store | null): WorkspaceSettings {
   return store ? getWorkspaceSettings(store) : DEFAULT_WORKSPACE;
 }
 
+/** The summary of an import refused before any row was read (no file, no store): one message. */
+export function rejectedImport(message: string): ImportSummary {
+  return {
+    status: 'rejected',
+    rowsRead: 0,
+    items: 0,
+    weeks: 0,
+    warnings: [],
+    errors: [{ line: null, column: null, value: null, message }],
+    mapping: {},
+  };
+}
+
 /**
  * Read, validate and (when clean) write one file. Never throws for a bad file: the summary says
  * `rejected` with the errors. Throws only for faults of the machine (I/O, a store that broke).
@@ -316,15 +329,7 @@ export async function importFile(store: Store, path: string, options: ImportOpti
         : code === 'EISDIR'
           ? 'is a folder, not a file'
           : (err as Error).message;
-    return {
-      status: 'rejected',
-      rowsRead: 0,
-      items: 0,
-      weeks: 0,
-      warnings: [],
-      errors: [{ line: null, column: null, value: null, message: `${path}: ${why}` }],
-      mapping: {},
-    };
+    return rejectedImport(`${path}: ${why}`);
   }
   const earlier = options.force ? null : findBatchBySha(store, sha, options.kind);
   if (earlier) {
