@@ -11,7 +11,7 @@
  */
 import { fork } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
-import { extname, join, normalize, sep } from 'node:path';
+import { join, normalize, sep } from 'node:path';
 import {
   app,
   BrowserWindow,
@@ -23,6 +23,7 @@ import {
   session,
   utilityProcess,
 } from 'electron';
+import { contentTypeOf } from './transport/content-type';
 import { connectHost, type HostClient } from './transport/host-client';
 import type { HostChannel } from './transport/host-protocol';
 import { SCREEN_CSP } from './transport/http';
@@ -32,14 +33,6 @@ import { readRecent, rememberStore } from './transport/recent-stores';
 const ROOT = app.getAppPath();
 const RENDERER = join(ROOT, 'dist-renderer');
 const RECENT_FILE = () => join(app.getPath('userData'), 'recent-stores.json');
-const TYPES: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.svg': 'image/svg+xml',
-  '.png': 'image/png',
-  '.woff2': 'font/woff2',
-};
 
 let win: BrowserWindow | null = null;
 let host: HostClient | null = null;
@@ -156,7 +149,7 @@ function serveScreens(): void {
       return new Response('not found', { status: 404 });
     return new Response(readFileSync(file), {
       headers: {
-        'content-type': TYPES[extname(file)] ?? 'application/octet-stream',
+        'content-type': contentTypeOf(file),
         'content-security-policy': SCREEN_CSP,
         'x-content-type-options': 'nosniff',
       },

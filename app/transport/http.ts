@@ -13,6 +13,7 @@ import type { AddressInfo } from 'node:net';
 import { extname, join, normalize, resolve, sep } from 'node:path';
 import type { ProvisionApi } from '../api/contract';
 import { ServiceError } from '../api/service-error';
+import { contentTypeOf } from './content-type';
 import { ApiArgumentError, MAX_IMPORT_CHARS, validateCall } from './validate-call';
 
 export const LOOPBACK = '127.0.0.1';
@@ -22,17 +23,6 @@ export const TOKEN_HEADER = 'x-provision-token';
 export const SCREEN_CSP =
   "default-src 'none'; script-src 'self'; style-src 'self'; img-src 'self' data:; font-src 'self'; " +
   "connect-src 'self'; base-uri 'none'; form-action 'none'; frame-ancestors 'none'";
-
-const TYPES: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.svg': 'image/svg+xml',
-  '.png': 'image/png',
-  '.json': 'application/json',
-  '.ico': 'image/x-icon',
-  '.woff2': 'font/woff2',
-};
 
 export interface HttpTransport {
   url: string;
@@ -94,7 +84,7 @@ function serveStatic(staticDir: string, pathname: string, res: ServerResponse): 
     }
     file = join(root, 'index.html');
   }
-  const type = TYPES[extname(file)] ?? 'application/octet-stream';
+  const type = contentTypeOf(file);
   res.writeHead(200, {
     'content-type': type,
     'content-security-policy': SCREEN_CSP,
