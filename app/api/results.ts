@@ -149,7 +149,7 @@ export function storeResults(store: Store): ResultsSource {
       const flagged = new Map(getReviewQueue(store, run.id).map((e) => [e.sku, e.flags]));
       const orders = getOrderLinesBySupplier(store, { runId: run.id });
       for (const g of orders.groups) {
-        for (const l of g.lines as (StoredOrderLine & { planned: boolean })[]) {
+        for (const l of g.lines) {
           out.set(l.sku, {
             model: null,
             flags: flagged.get(l.sku) ?? [],
@@ -228,7 +228,7 @@ export function storeResults(store: Store): ResultsSource {
     orderLines() {
       if (!run) return [];
       return getOrderLinesBySupplier(store, { runId: run.id }).groups.flatMap((g) =>
-        (g.lines as (StoredOrderLine & { planned: boolean })[]).filter((l) => l.planned).map(toOrderLine),
+        g.lines.filter((l) => l.planned).map(toOrderLine),
       );
     },
   };

@@ -25,7 +25,8 @@ export interface ModelRecord {
   detailJson: string;
 }
 
-export interface OrderLineRecord {
+/** The figures of an order line, as written by a run and as read back. */
+export interface OrderLineFigures {
   orderQty: number;
   casePacks: number;
   reorderPoint: number;
@@ -36,6 +37,9 @@ export interface OrderLineRecord {
   serviceLevel: number;
   serviceKind: ServiceKind;
   explanation: string;
+}
+
+export interface OrderLineRecord extends OrderLineFigures {
   /** JSON of the full order line as the engine returned it. */
   detailJson: string | null;
 }
@@ -416,23 +420,14 @@ export interface ChosenModel {
   detail: unknown;
 }
 
-export interface StoredOrderLine {
+export interface StoredOrderLine extends OrderLineFigures {
   sku: string;
   description: string;
   supplier: string | null;
   /** The quantity to order: the planner's edit when there is one, else the suggestion. */
   orderQty: number;
   suggestedQty: number;
-  casePacks: number;
-  reorderPoint: number;
-  orderUpTo: number;
-  safetyStock: number;
-  intervalForecast: number;
-  intervalSd: number;
-  serviceLevel: number;
-  serviceKind: ServiceKind;
   flags: string[];
-  explanation: string;
   edit: { qty: number; reason: string; actor: string; at: string } | null;
   detail: unknown;
 }
@@ -661,11 +656,16 @@ export function getReviewQueue(store: Store, runId?: number): ReviewQueueEntry[]
   );
 }
 
-export interface SupplierOrderGroup {
+export interface SupplierOrderGroup<L extends StoredOrderLine = StoredOrderLine> {
   /** Null for items without a supplier (listed last). */
   supplier: string | null;
-  lines: StoredOrderLine[];
+  lines: L[];
   totalUnits: number;
+}
+
+/** A line of the order list: `planned` false for an active item the run has no line for. */
+export interface PlannedOrderLine extends StoredOrderLine {
+  planned: boolean;
 }
 
 /**
@@ -683,14 +683,14 @@ export function getOrderLinesBySupplier(
   } = {},
 ): {
   runId: number | null;
-  groups: (SupplierOrderGroup & { lines: (StoredOrderLine & { planned: boolean })[] })[];
+  groups: SupplierOrderGroup<PlannedOrderLine>[];
 } {
   const run = resolveRunId(store, options.runId);
   const where = options.supplier !== undefined ? ' AND s.name = @supplier' : '';
   const rows = store.db
     .prepare(`${ORDER_SELECT} WHERE i.active = 1${where} ORDER BY s.name IS NULL, s.name, i.sku`)
     .all({ run: run ?? -1, supplier: options.supplier }) as OrderDbRow[];
-  const groups: (SupplierOrderGroup & { lines: (StoredOrderLine & { planned: boolean })[] })[] = [];
+  const groups: SupplierOrderGroup<PlannedOrderLine>[] = [];
   for (const r of rows) {
     const line = orderFromRow(r, options.withDetail === true);
     const full =
