@@ -6,6 +6,7 @@ import { type DragEvent, useState } from 'react';
 import type { ImportKind, ImportOutcome, ImportPreview, ImportRequest } from '../../../app/api/contract';
 import { useApi } from '../api-context';
 import { MappingPreview } from '../components/MappingPreview';
+import { StatusLines } from '../components/StatusLines';
 
 const KINDS: { kind: ImportKind; label: string }[] = [
   { kind: 'sales', label: 'Weekly sales' },
@@ -149,11 +150,7 @@ export function ImportScreen() {
           Reading…
         </p>
       )}
-      {error && (
-        <p className="error" role="alert">
-          {error}
-        </p>
-      )}
+      <StatusLines error={error} />
       {preview && file && (
         <>
           <MappingPreview preview={preview} onMappingChange={(m) => runPreview(file, m)} />

@@ -8,6 +8,7 @@ import type { Decision } from '../../../app/api/contract';
 import { useApi, useLoad } from '../api-context';
 import { AcfChart, ForecastChart, RootsChart } from '../charts';
 import { FlagList } from '../components/FlagList';
+import { StatusLines } from '../components/StatusLines';
 import { WhenVisible } from '../components/WhenVisible';
 import { dec1, serviceLabel, units } from '../format';
 import { fetchItem } from '../item-cache';
@@ -69,16 +70,7 @@ export function ItemDetailPanel({ sku }: { sku: string }) {
           </p>
         )}
       </header>
-      {message && (
-        <p className="note" role="status">
-          {message}
-        </p>
-      )}
-      {error && (
-        <p className="error" role="alert">
-          {error}
-        </p>
-      )}
+      <StatusLines note={message} error={error} />
 
       {!r ? (
         <p className="note">Not planned yet: start a run to see the forecast and the order line.</p>

@@ -2,6 +2,7 @@
 import { useDeferredValue, useMemo, useState } from 'react';
 import { useApi, useLoad } from '../api-context';
 import { ItemGrid } from '../components/ItemGrid';
+import { StatusLines } from '../components/StatusLines';
 import { fetchItem } from '../item-cache';
 import { navigate } from '../route';
 import { ItemDetailPanel } from './ItemDetailPanel';
@@ -50,11 +51,7 @@ export function ItemsScreen({ sku }: { sku: string | null }) {
             {items.data ? `${rows.length} of ${items.data.length}` : items.loading ? 'loading…' : ''}
           </span>
         </div>
-        {items.error && (
-          <p className="error" role="alert">
-            {items.error}
-          </p>
-        )}
+        <StatusLines error={items.error} />
         {items.data && (
           <ItemGrid
             rows={rows}

@@ -2,6 +2,7 @@
 import { useState } from 'react';
 import { useApi, useLoad } from '../api-context';
 import { OrderTable } from '../components/OrderTable';
+import { StatusLines } from '../components/StatusLines';
 import { units } from '../format';
 
 export function OrdersScreen() {
@@ -50,16 +51,7 @@ export function OrdersScreen() {
         Suggestions only: check each quantity against what you know (promotions, storage room, shelf life)
         before you order.
       </p>
-      {message && (
-        <p className="note" role="status">
-          {message}
-        </p>
-      )}
-      {orders.error && (
-        <p className="error" role="alert">
-          {orders.error}
-        </p>
-      )}
+      <StatusLines note={message} error={orders.error} />
       {orders.data && orders.data.length === 0 && (
         <p className="muted">No order lines yet: run the plan first.</p>
       )}

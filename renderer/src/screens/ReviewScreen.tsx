@@ -1,6 +1,7 @@
 /** The review queue: flagged items, worst first, each with its flags in plain words. */
 import { useLoad } from '../api-context';
 import { FlagList } from '../components/FlagList';
+import { StatusLines } from '../components/StatusLines';
 import { routeHref } from '../route';
 
 export function ReviewScreen() {
@@ -15,11 +16,7 @@ export function ReviewScreen() {
           </span>
         )}
       </div>
-      {queue.error && (
-        <p className="error" role="alert">
-          {queue.error}
-        </p>
-      )}
+      <StatusLines error={queue.error} />
       {queue.data && queue.data.length === 0 && (
         <p className="muted">Nothing to review: no item of the latest run carries a flag (or no run yet).</p>
       )}

@@ -3,6 +3,7 @@ import { type FormEvent, useEffect, useState } from 'react';
 import type { WorkspaceSettings } from '../../../app/api/contract';
 import { useApi, useLoad } from '../api-context';
 import { parseNumber } from '../components/adjustment-form';
+import { StatusLines } from '../components/StatusLines';
 
 const DAYS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'];
 
@@ -93,11 +94,7 @@ export function SettingsScreen() {
       <div className="toolbar">
         <h1 id="settings-h">Settings</h1>
       </div>
-      {loaded.error && (
-        <p className="error" role="alert">
-          {loaded.error}
-        </p>
-      )}
+      <StatusLines error={loaded.error} />
       {loaded.data && (
         <form className="settings" onSubmit={save} aria-label="Workspace settings">
           <fieldset>
@@ -141,16 +138,7 @@ export function SettingsScreen() {
               Save settings
             </button>
           </div>
-          {message && (
-            <p className="note" role="status">
-              {message}
-            </p>
-          )}
-          {error && (
-            <p className="error" role="alert">
-              {error}
-            </p>
-          )}
+          <StatusLines note={message} error={error} />
         </form>
       )}
     </section>
