@@ -192,6 +192,7 @@ function fallbackFit(prep: Prepared, opts: ArmaFitOptions, includeMean: boolean,
       level,
     },
     evaluations: 0,
+    gradients: 0,
   };
   return out;
 }
@@ -364,6 +365,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
       level: Number.NaN,
     },
     evaluations: lik.evaluations,
+    gradients: lik.gradients,
   };
 }
 

@@ -18,6 +18,12 @@
  * to the steady-state recursion until the next missing week.
  */
 import {
+  createGradientWorkspace,
+  type FilterTrace,
+  type GradientWorkspace,
+  likelihoodGradient,
+} from './likelihoodGradient';
+import {
   createLyapunovWorkspace,
   type LyapunovWorkspace,
   stationaryCovariance,
@@ -51,11 +57,20 @@ export class ArmaLikelihood {
   readonly beta: Float64Array;
   private readonly chol: Float64Array;
   sigma2 = Number.NaN;
-  /** Likelihood evaluations since construction. */
+  /** Likelihood evaluations (filter passes) and analytic gradients since construction. */
   evaluations = 0;
+  gradients = 0;
   /** Σ v_x v_y and Σ v_x² of the last steadyMean3 call (the mean column's share). */
   private steadyCross = 0;
   private steadyX = 0;
+  /**
+   * What the last passMean3 recorded for the gradient (likelihoodGradient.ts), by step: F, the gains
+   * k1 and k2 (full filter), the innovations of the series and of the mean column; at a missing
+   * week the predicted covariance (six entries) and the two states before the prediction.
+   */
+  readonly trace: FilterTrace;
+  /** Σ (v_y − V_X β̂)²/F of the last profile() (the concentrated SSR). */
+  ssr = Number.NaN;
 
   constructor(w: Float64Array, xcols: Float64Array[], p: number, q: number) {
     this.n = w.length;
@@ -70,13 +85,64 @@ export class ArmaLikelihood {
     this.P = new Float64Array(r * r);
     this.tmp = new Float64Array(r * r);
     this.K = new Float64Array(r);
-    this.a = new Float64Array((this.k + 1) * r);
+    // Two columns at least: passMean3 runs a second (unused) column when there is no mean.
+    this.a = new Float64Array(Math.max(2, this.k + 1) * r);
     this.v = new Float64Array(this.k + 1);
     this.ws = createLyapunovWorkspace(r);
     this.sxx = new Float64Array(this.k * this.k);
     this.sxy = new Float64Array(this.k);
     this.beta = new Float64Array(this.k);
     this.chol = new Float64Array(this.k * this.k);
+    const n = this.n;
+    this.trace = {
+      F: new Float64Array(n),
+      k1: new Float64Array(n),
+      k2: new Float64Array(n),
+      vy: new Float64Array(n),
+      vx: new Float64Array(n),
+      missing: new Float64Array(w.some(Number.isNaN) ? 8 * n : 0),
+    };
+  }
+
+  /** The switch steps of the last pass (the starts of its steady-state stretches). */
+  get switches(): Int32Array {
+    return this.switchLog.subarray(0, this.switchCount);
+  }
+
+  /** φ (length r, zero-padded) and R = (1, −θ_1, …) of the last load. */
+  get transition(): { phi: Float64Array; R: Float64Array } {
+    return { phi: this.phi, R: this.R };
+  }
+
+  get columns(): Float64Array[] {
+    return this.cols;
+  }
+
+  get lyapunovWorkspace(): LyapunovWorkspace {
+    return this.ws;
+  }
+
+  /** The stationary covariance P₀ of the last load (passMean3 leaves it in place). */
+  get initialCovariance(): Float64Array {
+    return this.P;
+  }
+
+  private gradientWs: GradientWorkspace | null = null;
+
+  /**
+   * ∂/∂φ and ∂/∂θ of profile() at the parameters of the last profile() call, which must be the
+   * last pass (likelihoodGradient.ts); false when !hasGradient or nothing to differentiate.
+   */
+  gradient(gAr: Float64Array, gMa: Float64Array): boolean {
+    if (!this.hasGradient) return false;
+    this.gradientWs ??= createGradientWorkspace(this.n, this.r);
+    this.gradients++;
+    return likelihoodGradient(this, this.gradientWs, gAr, gMa);
+  }
+
+  /** True when the analytic gradient (likelihoodGradient.ts) covers this model: passMean3's case. */
+  get hasGradient(): boolean {
+    return this.k <= 1 && this.r <= 3;
   }
 
   /** Loads φ and θ (ma-minus) and the stationary initial covariance; false if not stationary. */
@@ -302,6 +368,12 @@ export class ArmaLikelihood {
     // (F ≥ 1 here in exact arithmetic: the innovation variance includes σ² = 1): one log per
     // block of steps instead of one per step.
     let prodF = 1;
+    const tF = this.trace.F;
+    const tk1 = this.trace.k1;
+    const tk2 = this.trace.k2;
+    const tvy = this.trace.vy;
+    const tvx = this.trace.vx;
+    const tm = this.trace.missing;
     const mode = this.switchMode;
     if (this.switchLog.length < n + 1) this.switchLog = new Int32Array(n + 1);
     const frozen = this.frozenLog;
@@ -314,6 +386,15 @@ export class ArmaLikelihood {
       const wt = w[t];
       if (Number.isNaN(wt)) {
         // A missing week: prediction only, a ← T a and P ← T P Tᵀ + R Rᵀ (φ enters here).
+        const m8 = 8 * t;
+        tm[m8] = p00;
+        tm[m8 + 1] = p01;
+        tm[m8 + 2] = p02;
+        tm[m8 + 3] = p11;
+        tm[m8 + 4] = p12;
+        tm[m8 + 5] = p22;
+        tm[m8 + 6] = a0;
+        tm[m8 + 7] = b0;
         const na0 = f0 * a0 + a1;
         const na1 = f1 * a0 + a2;
         a2 = f2 * a0;
@@ -348,6 +429,11 @@ export class ArmaLikelihood {
       const xt = x[t];
       const vy = wt - a0;
       const vx = xt - b0;
+      tF[t] = F;
+      tk1[t] = k1;
+      tk2[t] = k2;
+      tvy[t] = vy;
+      tvx[t] = vx;
       a0 = f0 * wt + a1 + k1 * vy;
       a1 = f1 * wt + a2 + k2 * vy;
       a2 = f2 * wt;
@@ -488,6 +574,8 @@ export class ArmaLikelihood {
     let syy = 0;
     let sxy = 0;
     let sxx = 0;
+    const tvy = this.trace.vy;
+    const tvx = this.trace.vx;
     let t = t0;
     for (; t < n; t++) {
       const wt = w[t];
@@ -495,6 +583,8 @@ export class ArmaLikelihood {
       const xt = x[t];
       const vy = wt - a0;
       const vx = xt - b0;
+      tvy[t] = vy;
+      tvx[t] = vx;
       a0 = f0 * wt + a1 + r1 * vy;
       a1 = f1 * wt + a2 + r2 * vy;
       a2 = f2 * wt;
@@ -577,6 +667,7 @@ export class ArmaLikelihood {
     if (!this.load(ar, ma) || !this.pass()) return Number.POSITIVE_INFINITY;
     const k = this.k;
     let ssr = this.syy;
+    this.ssr = ssr;
     if (k > 0) {
       if (!this.factor()) return Number.POSITIVE_INFINITY;
       const L = this.chol;
@@ -588,6 +679,7 @@ export class ArmaLikelihood {
         b[i] = s / L[i * k + i];
       }
       for (let i = 0; i < k; i++) ssr -= b[i] * b[i];
+      this.ssr = ssr;
       for (let i = k - 1; i >= 0; i--) {
         let s = b[i];
         for (let m = i + 1; m < k; m++) s -= L[m * k + i] * b[m];

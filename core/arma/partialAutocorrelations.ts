@@ -26,6 +26,39 @@ export function unconstrainedToCoefficients(
   }
 }
 
+/**
+ * The Jacobian of unconstrainedToCoefficients: jac[i·k + l] = ∂c_i/∂u_l, by differentiating the
+ * Durbin–Levinson recursion step by step (∂π_j/∂u_j = 1 − π_j²). work must hold k(k + 2) numbers.
+ */
+export function unconstrainedJacobian(
+  u: ArrayLike<number>,
+  offset: number,
+  k: number,
+  jac: Float64Array,
+  work: Float64Array,
+): void {
+  const c = work.subarray(0, k);
+  const cNew = work.subarray(k, 2 * k);
+  const D = work.subarray(2 * k, 2 * k + k * k);
+  jac.fill(0, 0, k * k);
+  for (let j = 0; j < k; j++) {
+    const pi = Math.tanh(u[offset + j]);
+    const dpi = 1 - pi * pi;
+    for (let i = 0; i < j; i++) {
+      cNew[i] = c[i] - pi * c[j - 1 - i];
+      for (let l = 0; l <= j; l++) {
+        D[i * k + l] = jac[i * k + l] - pi * jac[(j - 1 - i) * k + l] - (l === j ? dpi * c[j - 1 - i] : 0);
+      }
+    }
+    for (let i = 0; i < j; i++) {
+      c[i] = cNew[i];
+      for (let l = 0; l <= j; l++) jac[i * k + l] = D[i * k + l];
+    }
+    c[j] = pi;
+    jac[j * k + j] = dpi;
+  }
+}
+
 /** Partial autocorrelations of a polynomial (step-down recursion); null if not strictly inside. */
 export function coefficientsToPartials(coef: ArrayLike<number>): Float64Array | null {
   const k = coef.length;

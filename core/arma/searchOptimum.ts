@@ -17,7 +17,11 @@
 import { bfgsMinimize } from './bfgs';
 import { hannanRissanen, hannanStage1 } from './hannanRissanen';
 import { ArmaLikelihood } from './kalmanLikelihood';
-import { coefficientsToUnconstrained, unconstrainedToCoefficients } from './partialAutocorrelations';
+import {
+  coefficientsToUnconstrained,
+  unconstrainedJacobian,
+  unconstrainedToCoefficients,
+} from './partialAutocorrelations';
 
 const ABANDON_RADIUS = 0.05;
 const GRAD_STEP = 1e-6;
@@ -174,17 +178,48 @@ function search(
     unconstrainedToCoefficients(x, 0, p, ar, 0, work);
     unconstrainedToCoefficients(x, p, q, ma, 0, work);
   };
+  const m = p + q;
+  const lastX = new Float64Array(m);
   const objective = (x: Float64Array): number => {
     // Keep partial autocorrelations away from ±1 in floating point (tanh(19) rounds to 1).
     for (let i = 0; i < x.length; i++) if (Math.abs(x[i]) > 18) return Number.POSITIVE_INFINITY;
     toCoefficients(x);
+    lastX.set(x);
     return lik.profile(ar, ma);
   };
 
-  const m = p + q;
+  // The gradient in u: analytic where the likelihood has one (likelihoodGradient.ts; the chain
+  // rule through the partial-autocorrelation map), else forward differences, each stencil point
+  // filtered with the base point's switch step.
   const xh = new Float64Array(m);
-  // Forward differences, each stencil point filtered with the base point's switch step.
+  const gAr = new Float64Array(p);
+  const gMa = new Float64Array(q);
+  const jacAr = new Float64Array(p * p);
+  const jacMa = new Float64Array(q * q);
+  const jacWork = new Float64Array(Math.max(p, q) * (Math.max(p, q) + 2));
+  const analytic = (x: Float64Array, out: Float64Array): boolean => {
+    if (!lik.hasGradient) return false;
+    // BFGS asks for the gradient right after evaluating f at the same point; otherwise re-evaluate.
+    let same = true;
+    for (let i = 0; i < m; i++) if (lastX[i] !== x[i]) same = false;
+    if (!same && !Number.isFinite(objective(x))) return false;
+    if (!lik.gradient(gAr, gMa)) return false;
+    unconstrainedJacobian(x, 0, p, jacAr, jacWork);
+    unconstrainedJacobian(x, p, q, jacMa, jacWork);
+    for (let l = 0; l < p; l++) {
+      let s = 0;
+      for (let i = 0; i < p; i++) s += gAr[i] * jacAr[i * p + l];
+      out[l] = s;
+    }
+    for (let l = 0; l < q; l++) {
+      let s = 0;
+      for (let j = 0; j < q; j++) s += gMa[j] * jacMa[j * q + l];
+      out[p + l] = s;
+    }
+    return true;
+  };
   const gradient = (x: Float64Array, fx: number, out: Float64Array): void => {
+    if (analytic(x, out)) return;
     lik.freezeSwitches();
     for (let i = 0; i < m; i++) xh[i] = x[i];
     for (let i = 0; i < m; i++) {

@@ -14,10 +14,12 @@ export interface LyapunovWorkspace {
   /** r × r system and right-hand side. */
   a: Float64Array;
   b: Float64Array;
+  /** r × r right-hand side Q of the equation. */
+  q: Float64Array;
 }
 
 export function createLyapunovWorkspace(r: number): LyapunovWorkspace {
-  return { r, a: new Float64Array(r * r), b: new Float64Array(r) };
+  return { r, a: new Float64Array(r * r), b: new Float64Array(r), q: new Float64Array(r * r) };
 }
 
 /**
@@ -44,8 +46,25 @@ export function stationaryCovariance(
     }
     return true;
   }
-  // Unrolling P_ij = (T P Tᵀ)_ij + R_i R_j along its diagonal (entries past r are zero):
-  //   P_ij = Σ_k [φ_{i+k} φ_{j+k} c_0 + φ_{i+k} c_{j+k+1} + φ_{j+k} c_{i+k+1} + R_{i+k} R_{j+k}],
+  const Q = ws.q;
+  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) Q[i * r + j] = R[i] * R[j];
+  if (!solveCompanionLyapunov(phi, Q, ws, P)) return false;
+  return P[0] > 0 && Number.isFinite(P[0]);
+}
+
+/**
+ * Solves P = T P Tᵀ + Q for the companion T of phi (length r) and a symmetric r × r Q, into P.
+ * False when the system is singular (a unit root).
+ */
+export function solveCompanionLyapunov(
+  phi: Float64Array,
+  Q: Float64Array,
+  ws: LyapunovWorkspace,
+  P: Float64Array,
+): boolean {
+  const r = ws.r;
+  // Unrolling P_ij = (T P Tᵀ)_ij + Q_ij along its diagonal (entries past r are zero):
+  //   P_ij = Σ_k [φ_{i+k} φ_{j+k} c_0 + φ_{i+k} c_{j+k+1} + φ_{j+k} c_{i+k+1} + Q_{i+k,j+k}],
   // with c = P's first column, so every entry is linear in c. Taking j = 0 gives an r × r system
   // for c (instead of the r(r+1)/2 unknowns of the packed Lyapunov system); the rest of P then
   // follows from the bottom-right corner up.
@@ -57,7 +76,7 @@ export function stationaryCovariance(
     let d = 0;
     for (let k = 0; i + k < r; k++) {
       const fik = phi[i + k];
-      d += R[i + k] * R[k];
+      d += Q[(i + k) * r + k];
       A[row] -= fik * phi[k];
       if (k + 1 < r) A[row + k + 1] -= fik;
       if (i + k + 1 < r) A[row + i + k + 1] -= phi[k];
@@ -99,16 +118,16 @@ export function stationaryCovariance(
     for (let j = c + 1; j < r; j++) s -= A[c * r + j] * b[j];
     b[c] = s / A[c * r + c];
   }
-  // b = c (P's first column). P_ij = φ_i φ_j c_0 + φ_i c_{j+1} + φ_j c_{i+1} + P_{i+1,j+1} + R_i R_j.
+  // b = c (P's first column). P_ij = φ_i φ_j c_0 + φ_i c_{j+1} + φ_j c_{i+1} + P_{i+1,j+1} + Q_ij.
   const c0 = b[0];
   for (let i = r - 1; i >= 0; i--) {
     for (let j = r - 1; j >= i; j--) {
-      let v = phi[i] * phi[j] * c0 + R[i] * R[j];
+      let v = phi[i] * phi[j] * c0 + Q[i * r + j];
       if (j + 1 < r) v += phi[i] * b[j + 1] + P[(i + 1) * r + j + 1];
       if (i + 1 < r) v += phi[j] * b[i + 1];
       P[i * r + j] = v;
       P[j * r + i] = v;
     }
   }
-  return P[0] > 0 && Number.isFinite(P[0]);
+  return true;
 }

@@ -71,6 +71,8 @@ export interface ArmaFit {
   flags: string[];
   fallback: null | 'mean' | 'last-value';
   forecastState: ArmaForecastState;
-  /** Likelihood evaluations spent by the optimiser (all starts). */
+  /** Likelihood evaluations (filter passes) spent by the optimiser (all starts). */
   evaluations: number;
+  /** Analytic gradients computed by the optimiser (each about two passes' work). */
+  gradients: number;
 }

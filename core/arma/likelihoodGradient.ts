@@ -1,0 +1,258 @@
+/**
+ * The gradient of the concentrated objective ½(log σ̂² + Σ log F / n) (kalmanLikelihood.ts) in
+ * (φ, θ), by reverse-mode differentiation of the filter pass that computed it (the adjoint of each
+ * recursion, run backwards over the steps the pass recorded: Griewank & Walther 2008, "Evaluating
+ * Derivatives", ch. 3), for the pass of the commonest case (the mean or no regressor, r ≤ 3).
+ * It costs about one more pass, where forward differences cost p + q.
+ *
+ * By the envelope theorem the mean at its GLS estimate β̂ can be held fixed: the objective is then
+ * that of the single series z = w − β̂x, whose innovations are v_y − β̂ v_x (both columns go
+ * through the same filter), so only one column is differentiated. The steps where the pass
+ * switched to the steady state are those of the function differentiated (as the finite differences
+ * froze them), so the gradient is exact for the function the search minimises. The initial
+ * covariance's share comes from its tangents: dP₀ solves dP₀ = T dP₀ Tᵀ + C with
+ * C = dT P₀ Tᵀ + T P₀ dTᵀ + dR Rᵀ + R dRᵀ, one companion Lyapunov solve per parameter.
+ */
+import type { ArmaLikelihood } from './kalmanLikelihood';
+import { solveCompanionLyapunov } from './stationaryCovariance';
+
+export interface FilterTrace {
+  F: Float64Array;
+  k1: Float64Array;
+  k2: Float64Array;
+  vy: Float64Array;
+  vx: Float64Array;
+  /** 8 numbers per missing week: p00 p01 p02 p11 p12 p22 of the predicted covariance, a0, b0. */
+  missing: Float64Array;
+}
+
+/** Scratch for one likelihood's gradients (allocated once per likelihood). */
+export interface GradientWorkspace {
+  kind: Int8Array;
+  C: Float64Array;
+  X: Float64Array;
+  /** The adjoint of P₀: p00 p01 p02 p11 p12 p22. */
+  qbar: Float64Array;
+}
+
+export function createGradientWorkspace(n: number, r: number): GradientWorkspace {
+  return {
+    kind: new Int8Array(n),
+    C: new Float64Array(r * r),
+    X: new Float64Array(r * r),
+    qbar: new Float64Array(6),
+  };
+}
+
+const MISSING = 0;
+const FULL = 1;
+const STEADY = 2;
+/** A missing week right after a steady stretch, where the pass restarts P at R Rᵀ. */
+const MISSING_RESET = 3;
+
+/**
+ * Writes ∂objective/∂φ_i into gAr and ∂objective/∂θ_j into gMa for the parameters, β̂ and
+ * switch steps of the last profile() pass, which must have been passMean3's case
+ * (lik.hasGradient). False when that pass left nothing to differentiate (SSR not positive).
+ */
+export function likelihoodGradient(
+  lik: ArmaLikelihood,
+  ws: GradientWorkspace,
+  gAr: Float64Array,
+  gMa: Float64Array,
+): boolean {
+  const { n, p, q, r } = lik;
+  const cols = lik.columns;
+  const w = cols[0];
+  const x = lik.k > 0 ? cols[1] : w;
+  const b = lik.k > 0 ? lik.beta[0] : 0;
+  const { phi, R } = lik.transition;
+  const f0 = phi[0];
+  const f1 = r > 1 ? phi[1] : 0;
+  const f2 = r > 2 ? phi[2] : 0;
+  const r1 = r > 1 ? R[1] : 0;
+  const r2 = r > 2 ? R[2] : 0;
+  const ssr = lik.ssr;
+  const nobs = lik.nobs;
+  if (!(ssr > 0) || !Number.isFinite(ssr) || nobs === 0) return false;
+  const dS = 0.5 / ssr;
+  const dL = 0.5 / nobs;
+  const { F: tF, k1: tk1, k2: tk2, vy: tvy, vx: tvx, missing: tm } = lik.trace;
+
+  // The kind of every step, as the pass took it.
+  const kind = ws.kind;
+  const switches = lik.switches;
+  let si = 0;
+  let steady = false;
+  for (let t = 0; t < n; t++) {
+    if (Number.isNaN(w[t])) {
+      kind[t] = steady ? MISSING_RESET : MISSING;
+      steady = false;
+      continue;
+    }
+    if (si < switches.length && switches[si] === t) {
+      steady = true;
+      si++;
+    }
+    kind[t] = steady ? STEADY : FULL;
+  }
+
+  // Adjoints of the predicted state (A) and covariance (Q, one per distinct entry) of step t + 1,
+  // and of φ_0..φ_2 (gf) and R_1, R_2 (gr).
+  let A0 = 0;
+  let A1 = 0;
+  let A2 = 0;
+  let Q00 = 0;
+  let Q01 = 0;
+  let Q02 = 0;
+  let Q11 = 0;
+  let Q12 = 0;
+  let Q22 = 0;
+  let gf0 = 0;
+  let gf1 = 0;
+  let gf2 = 0;
+  let gr1 = 0;
+  let gr2 = 0;
+  for (let t = n - 1; t >= 0; t--) {
+    const kd = kind[t];
+    if (kd === STEADY) {
+      // a0' = f0 z + a1 + r1 e, a1' = f1 z + a2 + r2 e, a2' = f2 z, e = z − a0; SSR += e².
+      const zt = w[t] - b * x[t];
+      const e = tvy[t] - b * tvx[t];
+      gf0 += A0 * zt;
+      gf1 += A1 * zt;
+      gf2 += A2 * zt;
+      gr1 += A0 * e;
+      gr2 += A1 * e;
+      const eb = A0 * r1 + A1 * r2 + 2 * dS * e;
+      A2 = A1;
+      A1 = A0;
+      A0 = -eb;
+    } else if (kd === FULL) {
+      // The same with gains k = P_{·0}/F, SSR += e²/F, Σ log F += log F, and the covariance
+      // P' = shift of (P − K Kᵀ F) + R Rᵀ (kalmanLikelihood.ts, passMean3).
+      const F = tF[t];
+      const k1 = tk1[t];
+      const k2 = tk2[t];
+      const p01 = k1 * F;
+      const p02 = k2 * F;
+      const zt = w[t] - b * x[t];
+      const e = tvy[t] - b * tvx[t];
+      gf0 += A0 * zt;
+      gf1 += A1 * zt;
+      gf2 += A2 * zt;
+      const invF = 1 / F;
+      const eb = A0 * k1 + A1 * k2 + 2 * dS * e * invF;
+      let Fb = (dL - dS * e * e * invF) * invF;
+      // p00' = pf11 + 1, p01' = pf12 + r1, p02' = r2, p11' = pf22 + r1², p12' = r1 r2, p22' = r2²;
+      // pf11 = p11 − k1 p01, pf12 = p12 − k1 p02, pf22 = p22 − k2 p02.
+      gr1 += Q01 + 2 * r1 * Q11 + r2 * Q12;
+      gr2 += Q02 + r1 * Q12 + 2 * r2 * Q22;
+      const k1b = A0 * e - Q01 * p02 - Q00 * p01;
+      const k2b = A1 * e - Q11 * p02;
+      const n01 = -Q00 * k1 + k1b * invF;
+      const n02 = -Q11 * k2 - Q01 * k1 + k2b * invF;
+      Fb -= (k1b * k1 + k2b * k2) * invF;
+      Q22 = Q11;
+      Q12 = Q01;
+      Q11 = Q00;
+      Q00 = Fb;
+      Q01 = n01;
+      Q02 = n02;
+      A2 = A1;
+      A1 = A0;
+      A0 = -eb;
+    } else {
+      // Prediction only: a' = T a, P' = T P Tᵀ + R Rᵀ.
+      const m8 = 8 * t;
+      const p00 = tm[m8];
+      const p01 = tm[m8 + 1];
+      const p02 = tm[m8 + 2];
+      const a0 = tm[m8 + 6] - b * tm[m8 + 7];
+      gf0 += Q00 * (2 * f0 * p00 + 2 * p01) + Q01 * (f1 * p00 + p02) + Q02 * f2 * p00 + A0 * a0;
+      gf1 += Q01 * (f0 * p00 + p01) + Q11 * (2 * f1 * p00 + 2 * p02) + Q12 * f2 * p00 + A1 * a0;
+      gf2 += Q02 * (f0 * p00 + p01) + Q12 * (f1 * p00 + p02) + Q22 * 2 * f2 * p00 + A2 * a0;
+      gr1 += Q01 + 2 * r1 * Q11 + r2 * Q12;
+      gr2 += Q02 + r1 * Q12 + 2 * r2 * Q22;
+      let n00 = f0 * (Q00 * f0 + Q01 * f1 + Q02 * f2) + f1 * (Q11 * f1 + Q12 * f2) + Q22 * f2 * f2;
+      let n01 = 2 * f0 * Q00 + f1 * Q01 + f2 * Q02;
+      let n02 = f0 * Q01 + 2 * f1 * Q11 + f2 * Q12;
+      let n11 = Q00;
+      let n12 = Q01;
+      let n22 = Q11;
+      const nA0 = f0 * A0 + f1 * A1 + f2 * A2;
+      A2 = A1;
+      A1 = A0;
+      A0 = nA0;
+      if (kd === MISSING_RESET) {
+        // P here was R Rᵀ: its adjoint goes to R and no further back.
+        gr1 += n01 + 2 * r1 * n11 + r2 * n12;
+        gr2 += n02 + r1 * n12 + 2 * r2 * n22;
+        n00 = 0;
+        n01 = 0;
+        n02 = 0;
+        n11 = 0;
+        n12 = 0;
+        n22 = 0;
+      }
+      Q00 = n00;
+      Q01 = n01;
+      Q02 = n02;
+      Q11 = n11;
+      Q12 = n12;
+      Q22 = n22;
+    }
+  }
+  // The initial (stationary) covariance's share, through its tangents (one Lyapunov solve each).
+  const qb = ws.qbar;
+  qb[0] = Q00;
+  qb[1] = Q01;
+  qb[2] = Q02;
+  qb[3] = Q11;
+  qb[4] = Q12;
+  qb[5] = Q22;
+  for (let i = 0; i < p; i++) {
+    const gfi = i === 0 ? gf0 : i === 1 ? gf1 : gf2;
+    const share = initialShare(lik, ws, i, -1);
+    if (Number.isNaN(share)) return false;
+    gAr[i] = gfi + share;
+  }
+  for (let j = 0; j < q; j++) {
+    const grj = j === 0 ? gr1 : gr2;
+    const share = initialShare(lik, ws, -1, j);
+    if (Number.isNaN(share)) return false;
+    gMa[j] = -grj + share;
+  }
+  return true;
+}
+
+/**
+ * Σ over distinct entries of Q̄_ij · ∂P₀_ij/∂(φ_i or θ_j) (ws.qbar holds Q̄), NaN when the Lyapunov
+ * system is singular. dP₀ = T dP₀ Tᵀ + C with, for φ_i, C = e_i Mᵀ + M e_iᵀ, M_j = (T P₀)_{j0} =
+ * φ_j P₀_00 + P₀_{j+1,0}; for θ_j (R_{j+1} = −θ_j), C = −(e_m Rᵀ + R e_mᵀ), m = j + 1.
+ */
+function initialShare(lik: ArmaLikelihood, ws: GradientWorkspace, arIndex: number, maIndex: number): number {
+  const r = lik.r;
+  const P0 = lik.initialCovariance;
+  const { phi, R } = lik.transition;
+  const { C, X, qbar } = ws;
+  C.fill(0);
+  if (arIndex >= 0) {
+    for (let j = 0; j < r; j++) {
+      const m = phi[j] * P0[0] + (j + 1 < r ? P0[(j + 1) * r] : 0);
+      C[arIndex * r + j] += m;
+      C[j * r + arIndex] += m;
+    }
+  } else {
+    const m = maIndex + 1;
+    for (let i = 0; i < r; i++) {
+      C[m * r + i] -= R[i];
+      C[i * r + m] -= R[i];
+    }
+  }
+  if (!solveCompanionLyapunov(phi, C, lik.lyapunovWorkspace, X)) return Number.NaN;
+  let s = qbar[0] * X[0];
+  if (r > 1) s += qbar[1] * X[1] + qbar[3] * X[r + 1];
+  if (r > 2) s += qbar[2] * X[2] + qbar[4] * X[r + 2] + qbar[5] * X[2 * r + 2];
+  return s;
+}
