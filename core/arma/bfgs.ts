@@ -47,7 +47,18 @@ export function bfgsMinimize(
   x0: ArrayLike<number>,
   options: Partial<BfgsOptions> = {},
 ): BfgsResult {
-  const o = { ...DEFAULT_BFGS, ...options };
+  // Each option with its default (no object spread: this runs for every start of every fit).
+  const o: BfgsOptions = {
+    maxIterations: options.maxIterations ?? DEFAULT_BFGS.maxIterations,
+    gradientTolerance: options.gradientTolerance ?? DEFAULT_BFGS.gradientTolerance,
+    valueTolerance: options.valueTolerance ?? DEFAULT_BFGS.valueTolerance,
+    step: options.step ?? DEFAULT_BFGS.step,
+    forward: options.forward ?? DEFAULT_BFGS.forward,
+    maxStep: options.maxStep ?? DEFAULT_BFGS.maxStep,
+    abandon: options.abandon,
+    gradient: options.gradient,
+    isConverged: options.isConverged,
+  };
   const m = x0.length;
   const x = Float64Array.from(x0);
   let evaluations = 0;

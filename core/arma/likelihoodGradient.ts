@@ -10,11 +10,12 @@
  * through the same filter), so only one column is differentiated. The steps where the pass
  * switched to the steady state are those of the function differentiated (as the finite differences
  * froze them), so the gradient is exact for the function the search minimises. The initial
- * covariance's share comes from its tangents: dP₀ solves dP₀ = T dP₀ Tᵀ + C with
- * C = dT P₀ Tᵀ + T P₀ dTᵀ + dR Rᵀ + R dRᵀ, one companion Lyapunov solve per parameter.
+ * covariance P₀ = T P₀ Tᵀ + R Rᵀ moves with the parameters as dP₀ = T dP₀ Tᵀ + C with
+ * C = dT P₀ Tᵀ + T P₀ dTᵀ + dR Rᵀ + R dRᵀ; its share of every parameter's derivative comes from
+ * one solve of the adjoint equation S = Tᵀ S T + G (stationaryCovariance.ts).
  */
 import type { ArmaLikelihood } from './kalmanLikelihood';
-import { solveCompanionLyapunov } from './stationaryCovariance';
+import { solveCompanionLyapunovAdjoint } from './stationaryCovariance';
 
 export interface FilterTrace {
   F: Float64Array;
@@ -29,18 +30,16 @@ export interface FilterTrace {
 /** Scratch for one likelihood's gradients (allocated once per likelihood). */
 export interface GradientWorkspace {
   kind: Int8Array;
-  C: Float64Array;
-  X: Float64Array;
-  /** The adjoint of P₀: p00 p01 p02 p11 p12 p22. */
-  qbar: Float64Array;
+  /** The adjoint of P₀ as a symmetric matrix, and the solution of the adjoint Lyapunov equation. */
+  G: Float64Array;
+  S: Float64Array;
 }
 
 export function createGradientWorkspace(n: number, r: number): GradientWorkspace {
   return {
     kind: new Int8Array(n),
-    C: new Float64Array(r * r),
-    X: new Float64Array(r * r),
-    qbar: new Float64Array(6),
+    G: new Float64Array(r * r),
+    S: new Float64Array(r * r),
   };
 }
 
@@ -79,22 +78,27 @@ export function likelihoodGradient(
   const dL = 0.5 / nobs;
   const { F: tF, k1: tk1, k2: tk2, vy: tvy, vx: tvx, missing: tm } = lik.trace;
 
-  // The kind of every step, as the pass took it.
-  const kind = ws.kind;
+  // The kind of every step, as the pass took it. Without missing weeks there is at most one
+  // steady stretch, from the switch step to the end; otherwise each step's kind is written out.
   const switches = lik.switches;
-  let si = 0;
-  let steady = false;
-  for (let t = 0; t < n; t++) {
-    if (Number.isNaN(w[t])) {
-      kind[t] = steady ? MISSING_RESET : MISSING;
-      steady = false;
-      continue;
+  const noMissing = tm.length === 0;
+  const steadyFrom = noMissing && switches.length > 0 ? switches[0] : n;
+  const kind = ws.kind;
+  if (!noMissing) {
+    let si = 0;
+    let steady = false;
+    for (let t = 0; t < n; t++) {
+      if (Number.isNaN(w[t])) {
+        kind[t] = steady ? MISSING_RESET : MISSING;
+        steady = false;
+        continue;
+      }
+      if (si < switches.length && switches[si] === t) {
+        steady = true;
+        si++;
+      }
+      kind[t] = steady ? STEADY : FULL;
     }
-    if (si < switches.length && switches[si] === t) {
-      steady = true;
-      si++;
-    }
-    kind[t] = steady ? STEADY : FULL;
   }
 
   // Adjoints of the predicted state (A) and covariance (Q, one per distinct entry) of step t + 1,
@@ -114,7 +118,7 @@ export function likelihoodGradient(
   let gr1 = 0;
   let gr2 = 0;
   for (let t = n - 1; t >= 0; t--) {
-    const kd = kind[t];
+    const kd = noMissing ? (t >= steadyFrom ? STEADY : FULL) : kind[t];
     if (kd === STEADY) {
       // a0' = f0 z + a1 + r1 e, a1' = f1 z + a2 + r2 e, a2' = f2 z, e = z − a0; SSR += e².
       const zt = w[t] - b * x[t];
@@ -203,56 +207,34 @@ export function likelihoodGradient(
       Q22 = n22;
     }
   }
-  // The initial (stationary) covariance's share, through its tangents (one Lyapunov solve each).
-  const qb = ws.qbar;
-  qb[0] = Q00;
-  qb[1] = Q01;
-  qb[2] = Q02;
-  qb[3] = Q11;
-  qb[4] = Q12;
-  qb[5] = Q22;
+  // The initial (stationary) covariance's share: with G the adjoint of P₀ as a symmetric matrix
+  // (each off-diagonal variable stands for two entries) and S = Tᵀ S T + G, the share of a
+  // parameter is ⟨S, C⟩ for its C (above): 2 (S M)_i for φ_i, −2 (S R)_m for θ_j.
+  const G = ws.G;
+  const S = ws.S;
+  G.fill(0);
+  G[0] = Q00;
+  if (r > 1) {
+    G[1] = G[r] = 0.5 * Q01;
+    G[r + 1] = Q11;
+  }
+  if (r > 2) {
+    G[2] = G[2 * r] = 0.5 * Q02;
+    G[r + 2] = G[2 * r + 1] = 0.5 * Q12;
+    G[2 * r + 2] = Q22;
+  }
+  if (!solveCompanionLyapunovAdjoint(phi, G, lik.lyapunovWorkspace, S)) return false;
+  const P0 = lik.initialCovariance;
   for (let i = 0; i < p; i++) {
-    const gfi = i === 0 ? gf0 : i === 1 ? gf1 : gf2;
-    const share = initialShare(lik, ws, i, -1);
-    if (Number.isNaN(share)) return false;
-    gAr[i] = gfi + share;
+    let share = 0;
+    for (let j = 0; j < r; j++) share += S[i * r + j] * (phi[j] * P0[0] + (j + 1 < r ? P0[(j + 1) * r] : 0));
+    gAr[i] = (i === 0 ? gf0 : i === 1 ? gf1 : gf2) + 2 * share;
   }
   for (let j = 0; j < q; j++) {
-    const grj = j === 0 ? gr1 : gr2;
-    const share = initialShare(lik, ws, -1, j);
-    if (Number.isNaN(share)) return false;
-    gMa[j] = -grj + share;
+    const m = j + 1;
+    let share = 0;
+    for (let i = 0; i < r; i++) share += S[m * r + i] * R[i];
+    gMa[j] = -(j === 0 ? gr1 : gr2) - 2 * share;
   }
   return true;
-}
-
-/**
- * Σ over distinct entries of Q̄_ij · ∂P₀_ij/∂(φ_i or θ_j) (ws.qbar holds Q̄), NaN when the Lyapunov
- * system is singular. dP₀ = T dP₀ Tᵀ + C with, for φ_i, C = e_i Mᵀ + M e_iᵀ, M_j = (T P₀)_{j0} =
- * φ_j P₀_00 + P₀_{j+1,0}; for θ_j (R_{j+1} = −θ_j), C = −(e_m Rᵀ + R e_mᵀ), m = j + 1.
- */
-function initialShare(lik: ArmaLikelihood, ws: GradientWorkspace, arIndex: number, maIndex: number): number {
-  const r = lik.r;
-  const P0 = lik.initialCovariance;
-  const { phi, R } = lik.transition;
-  const { C, X, qbar } = ws;
-  C.fill(0);
-  if (arIndex >= 0) {
-    for (let j = 0; j < r; j++) {
-      const m = phi[j] * P0[0] + (j + 1 < r ? P0[(j + 1) * r] : 0);
-      C[arIndex * r + j] += m;
-      C[j * r + arIndex] += m;
-    }
-  } else {
-    const m = maIndex + 1;
-    for (let i = 0; i < r; i++) {
-      C[m * r + i] -= R[i];
-      C[i * r + m] -= R[i];
-    }
-  }
-  if (!solveCompanionLyapunov(phi, C, lik.lyapunovWorkspace, X)) return Number.NaN;
-  let s = qbar[0] * X[0];
-  if (r > 1) s += qbar[1] * X[1] + qbar[3] * X[r + 1];
-  if (r > 2) s += qbar[2] * X[2] + qbar[4] * X[r + 2] + qbar[5] * X[2 * r + 2];
-  return s;
 }

@@ -37,24 +37,24 @@ export function unconstrainedJacobian(
   jac: Float64Array,
   work: Float64Array,
 ): void {
-  const c = work.subarray(0, k);
-  const cNew = work.subarray(k, 2 * k);
-  const D = work.subarray(2 * k, 2 * k + k * k);
+  // work: c (the coefficients so far) at 0, their next values at k, the next Jacobian at 2k.
+  const cNew = k;
+  const D = 2 * k;
   jac.fill(0, 0, k * k);
   for (let j = 0; j < k; j++) {
     const pi = Math.tanh(u[offset + j]);
     const dpi = 1 - pi * pi;
     for (let i = 0; i < j; i++) {
-      cNew[i] = c[i] - pi * c[j - 1 - i];
-      for (let l = 0; l <= j; l++) {
-        D[i * k + l] = jac[i * k + l] - pi * jac[(j - 1 - i) * k + l] - (l === j ? dpi * c[j - 1 - i] : 0);
-      }
+      const cm = work[j - 1 - i];
+      work[cNew + i] = work[i] - pi * cm;
+      for (let l = 0; l < j; l++) work[D + i * k + l] = jac[i * k + l] - pi * jac[(j - 1 - i) * k + l];
+      work[D + i * k + j] = -dpi * cm;
     }
     for (let i = 0; i < j; i++) {
-      c[i] = cNew[i];
-      for (let l = 0; l <= j; l++) jac[i * k + l] = D[i * k + l];
+      work[i] = work[cNew + i];
+      for (let l = 0; l <= j; l++) jac[i * k + l] = work[D + i * k + l];
     }
-    c[j] = pi;
+    work[j] = pi;
     jac[j * k + j] = dpi;
   }
 }

@@ -83,7 +83,72 @@ export function solveCompanionLyapunov(
     }
     b[i] = d;
   }
-  // Gaussian elimination with partial pivoting on the r × r system.
+  if (!solveSmallSystem(A, b, r)) return false;
+  // b = c (P's first column). P_ij = φ_i φ_j c_0 + φ_i c_{j+1} + φ_j c_{i+1} + P_{i+1,j+1} + Q_ij.
+  const c0 = b[0];
+  for (let i = r - 1; i >= 0; i--) {
+    for (let j = r - 1; j >= i; j--) {
+      let v = phi[i] * phi[j] * c0 + Q[i * r + j];
+      if (j + 1 < r) v += phi[i] * b[j + 1] + P[(i + 1) * r + j + 1];
+      if (i + 1 < r) v += phi[j] * b[i + 1];
+      P[i * r + j] = v;
+      P[j * r + i] = v;
+    }
+  }
+  return true;
+}
+
+/**
+ * Solves S = Tᵀ S T + G (the adjoint of the equation above: for any C, ⟨G, X⟩ = ⟨S, C⟩ when
+ * X = T X Tᵀ + C) for the companion T of phi and a symmetric r × r G, into S. Since
+ * (Tᵀ S T)_ij = S_{i−1,j−1} for i, j ≥ 1, every entry is S_ij = s_|i−j| + H_ij with s = S's
+ * first row and H_ij = Σ_{k<min(i,j)} G_{i−k,j−k}; the first row's equations
+ * s_0 = Σ_ab φ_a φ_b S_ab + G_00 and s_j = Σ_a φ_a S_{a,j−1} + G_0j are an r × r system for s.
+ */
+export function solveCompanionLyapunovAdjoint(
+  phi: Float64Array,
+  G: Float64Array,
+  ws: LyapunovWorkspace,
+  S: Float64Array,
+): boolean {
+  const r = ws.r;
+  const A = ws.a;
+  const b = ws.b;
+  // H into S first (S_ij = H_ij + s_|i−j| afterwards); H_0j = 0.
+  for (let i = 0; i < r; i++) {
+    for (let j = i; j < r; j++) {
+      const h = i === 0 ? 0 : S[(i - 1) * r + j - 1] + G[i * r + j];
+      S[i * r + j] = h;
+      S[j * r + i] = h;
+    }
+  }
+  A.fill(0, 0, r * r);
+  for (let j = 0; j < r; j++) {
+    A[j * r + j] = 1;
+    let d = G[j];
+    if (j === 0) {
+      for (let a = 0; a < r; a++) {
+        for (let c = 0; c < r; c++) {
+          const ff = phi[a] * phi[c];
+          A[Math.abs(a - c)] -= ff;
+          d += ff * S[a * r + c];
+        }
+      }
+    } else {
+      for (let a = 0; a < r; a++) {
+        A[j * r + Math.abs(a - j + 1)] -= phi[a];
+        d += phi[a] * S[a * r + j - 1];
+      }
+    }
+    b[j] = d;
+  }
+  if (!solveSmallSystem(A, b, r)) return false;
+  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) S[i * r + j] += b[Math.abs(i - j)];
+  return true;
+}
+
+/** Gaussian elimination with partial pivoting on the r × r system A x = b; x into b. */
+function solveSmallSystem(A: Float64Array, b: Float64Array, r: number): boolean {
   for (let c = 0; c < r; c++) {
     let piv = c;
     let best = Math.abs(A[c * r + c]);
@@ -117,17 +182,6 @@ export function solveCompanionLyapunov(
     let s = b[c];
     for (let j = c + 1; j < r; j++) s -= A[c * r + j] * b[j];
     b[c] = s / A[c * r + c];
-  }
-  // b = c (P's first column). P_ij = φ_i φ_j c_0 + φ_i c_{j+1} + φ_j c_{i+1} + P_{i+1,j+1} + Q_ij.
-  const c0 = b[0];
-  for (let i = r - 1; i >= 0; i--) {
-    for (let j = r - 1; j >= i; j--) {
-      let v = phi[i] * phi[j] * c0 + Q[i * r + j];
-      if (j + 1 < r) v += phi[i] * b[j + 1] + P[(i + 1) * r + j + 1];
-      if (i + 1 < r) v += phi[j] * b[i + 1];
-      P[i * r + j] = v;
-      P[j * r + i] = v;
-    }
   }
   return true;
 }
