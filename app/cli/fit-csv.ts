@@ -246,6 +246,7 @@ export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySerie
   let di = -1;
   let vi = -1;
   let last = -1;
+  let nextComma = -1;
   while (pos < len) {
     line++;
     let end = text.indexOf('\n', pos);
@@ -266,8 +267,14 @@ export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySerie
         let vb = len;
         let field = 0;
         let a = pos;
-        for (let i = pos; i <= stop; i++) {
-          if (i < stop && text.charCodeAt(i) !== COMMA) continue;
+        for (;;) {
+          // The next comma from a: found natively, and remembered when it lies past this line
+          // (or nowhere), so a run of lines without one is not searched again.
+          if (nextComma < a) {
+            nextComma = text.indexOf(',', a);
+            if (nextComma < 0) nextComma = len;
+          }
+          const i = nextComma > stop ? stop : nextComma;
           if (field === di) {
             wa = a;
             wb = i;
@@ -276,7 +283,7 @@ export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySerie
             va = a;
             vb = i;
           }
-          if (++field > last) break;
+          if (++field > last || i === stop) break;
           a = i + 1;
         }
         while (wa < wb && isBlank(text.charCodeAt(wa))) wa++;

@@ -4,7 +4,12 @@
  * textbook AR(1) variance 1/(1 − φ²).
  */
 import { describe, expect, it } from 'vitest';
-import { createLyapunovWorkspace, stationaryCovariance } from '../../../core/arma/stationaryCovariance';
+import {
+  createLyapunovWorkspace,
+  solveCompanionLyapunov,
+  solveCompanionLyapunovAdjoint,
+  stationaryCovariance,
+} from '../../../core/arma/stationaryCovariance';
 
 function residual(phi: Float64Array, R: Float64Array, P: Float64Array): number {
   const r = phi.length;
@@ -82,5 +87,31 @@ describe('stationary covariance of the ARMA state', () => {
       P,
     );
     expect(ok).toBe(false);
+  });
+  it('the adjoint equation S = Tᵀ S T + G satisfies ⟨G, X⟩ = ⟨S, C⟩ for X = T X Tᵀ + C (its definition)', () => {
+    for (const phiA of [[0.6], [0.5, 0.2], [0.3, 0.2, -0.1], [0.1, -0.2, 0.3, 0.1, 0.05]]) {
+      const r = phiA.length;
+      const phi = Float64Array.from(phiA);
+      const sym = (seed: number): Float64Array => {
+        const m = new Float64Array(r * r);
+        for (let i = 0; i < r; i++) {
+          for (let j = i; j < r; j++) m[i * r + j] = m[j * r + i] = Math.sin(seed + 3 * i + 7 * j);
+        }
+        return m;
+      };
+      const C = sym(1);
+      const G = sym(2);
+      const X = new Float64Array(r * r);
+      const S = new Float64Array(r * r);
+      expect(solveCompanionLyapunov(phi, C, createLyapunovWorkspace(r), X)).toBe(true);
+      expect(solveCompanionLyapunovAdjoint(phi, G, createLyapunovWorkspace(r), S)).toBe(true);
+      let gx = 0;
+      let sc = 0;
+      for (let i = 0; i < r * r; i++) {
+        gx += G[i] * X[i];
+        sc += S[i] * C[i];
+      }
+      expect(Math.abs(gx - sc)).toBeLessThan(1e-10 * Math.max(1, Math.abs(gx)));
+    }
   });
 });
