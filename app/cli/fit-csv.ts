@@ -29,7 +29,6 @@ const ISO_WEEK = /^(\d{4})-?W(\d{2})$/;
 const POW10 = Array.from({ length: 16 }, (_, k) => 10 ** k);
 const DAYS_IN_MONTH = [0, 31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
-const COMMA = 44;
 const DASH = 45;
 const DOT = 46;
 const CR = 13;
@@ -274,7 +273,7 @@ export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySerie
             nextComma = text.indexOf(',', a);
             if (nextComma < 0) nextComma = len;
           }
-          const i = nextComma > stop ? stop : nextComma;
+          const i = Math.min(nextComma, stop);
           if (field === di) {
             wa = a;
             wb = i;

@@ -88,16 +88,16 @@ export function likelihoodGradient(
     let si = 0;
     let steady = false;
     for (let t = 0; t < n; t++) {
-      if (Number.isNaN(w[t])) {
-        kind[t] = steady ? MISSING_RESET : MISSING;
-        steady = false;
-        continue;
-      }
+      // A switch step starts a steady stretch, which is empty when that week is missing (the pass
+      // then restarts P at R Rᵀ there).
       if (si < switches.length && switches[si] === t) {
         steady = true;
         si++;
       }
-      kind[t] = steady ? STEADY : FULL;
+      if (Number.isNaN(w[t])) {
+        kind[t] = steady ? MISSING_RESET : MISSING;
+        steady = false;
+      } else kind[t] = steady ? STEADY : FULL;
     }
   }
 
@@ -236,5 +236,7 @@ export function likelihoodGradient(
     for (let i = 0; i < r; i++) share += S[m * r + i] * R[i];
     gMa[j] = -(j === 0 ? gr1 : gr2) - 2 * share;
   }
+  for (let i = 0; i < p; i++) if (!Number.isFinite(gAr[i])) return false;
+  for (let j = 0; j < q; j++) if (!Number.isFinite(gMa[j])) return false;
   return true;
 }

@@ -6,8 +6,9 @@
  * Where Rscript is installed, base R's stats::arima(method = "ML") is timed in a plain loop over the
  * same series (test/bench/fit-arima.R), and the share of series where our log-likelihood is at
  * least R's − 1e-6 is printed. Each timing is the fastest of a few runs (the machine is shared).
- * In-process figures follow (steadier than wall time): likelihood evaluations per fit, µs per
- * evaluation, and the same for fitArma's effort 'quick'. Knobs: FIT_BENCH_FILES, FIT_BENCH_REPEATS.
+ * In-process figures follow (steadier than wall time): likelihood evaluations (filter passes) and
+ * analytic gradients per fit, µs per evaluation, and the same for fitArma's effort 'quick'.
+ * Knobs: FIT_BENCH_FILES, FIT_BENCH_REPEATS.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -64,9 +65,10 @@ function writeSeries(
 }
 
 /**
- * In-process figures, steadier than wall time on a shared machine: likelihood evaluations per fit,
- * ms per fit (fitArma alone), µs per evaluation of the likelihood at each fitted model, and the
- * same for effort 'quick' with the share of series where it reaches the thorough optimum.
+ * In-process figures, steadier than wall time on a shared machine: likelihood evaluations and
+ * analytic gradients per fit, ms per fit (fitArma alone), µs per evaluation of the likelihood at
+ * each fitted model, and the same for effort 'quick' with the share of series where it reaches the
+ * thorough optimum.
  */
 function inProcess(series: Float64Array[], p: number, q: number): string {
   const fitAll = (effort: 'thorough' | 'quick') => {
@@ -75,7 +77,8 @@ function inProcess(series: Float64Array[], p: number, q: number): string {
     const fits = series.map((y) => fitArma(y, { p, d: 0, q, effort }));
     const ms = Number(process.hrtime.bigint() - t0) / 1e6 / series.length;
     const evals = fits.reduce((s, f) => s + f.evaluations, 0) / series.length;
-    return { fits, ms, evals };
+    const gradients = fits.reduce((s, f) => s + f.gradients, 0) / series.length;
+    return { fits, ms, evals, gradients };
   };
   const thorough = fitAll('thorough');
   const quick = fitAll('quick');
@@ -95,7 +98,7 @@ function inProcess(series: Float64Array[], p: number, q: number): string {
   }
   const usPerEval = Number(process.hrtime.bigint() - t0) / 1e3 / Math.max(1, calls);
   return (
-    `  in-process: ${thorough.evals.toFixed(1)} likelihood evaluations per fit, ${thorough.ms.toFixed(3)} ms per fit, ` +
+    `  in-process: ${thorough.evals.toFixed(1)} likelihood evaluations and ${thorough.gradients.toFixed(1)} analytic gradients per fit, ${thorough.ms.toFixed(3)} ms per fit, ` +
     `${usPerEval.toFixed(2)} µs per evaluation${Number.isFinite(sink) ? '' : ' (non-finite)'}; effort 'quick': ` +
     `${quick.evals.toFixed(1)} evaluations, ${quick.ms.toFixed(3)} ms per fit, reaches the thorough optimum ` +
     `(within 1e-6) on ${same}/${series.length}\n`

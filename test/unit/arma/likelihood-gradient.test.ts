@@ -87,6 +87,30 @@ describe('analytic gradient of the concentrated likelihood', () => {
     });
   }
 
+  it('a missing week exactly where the steady state is entered (an empty steady stretch)', () => {
+    const n = 120;
+    const y = Float64Array.from(
+      simulateArma({ ar: [0.4], ma: [-0.3], sigma2: 1, mean: 0 }, n, createRng(11)),
+    );
+    const ones = [new Float64Array(n).fill(1)];
+    const ar = Float64Array.from([0.4]);
+    const ma = Float64Array.from([-0.3]);
+    const complete = new ArmaLikelihood(y, ones, 1, 1);
+    complete.profile(ar, ma);
+    const s = complete.switches[0];
+    y[s] = Number.NaN;
+    y[s + 40] = Number.NaN;
+    const lik = new ArmaLikelihood(y, ones, 1, 1);
+    expect(Number.isFinite(lik.profile(ar, ma))).toBe(true);
+    expect(Array.from(lik.switches)).toContain(s);
+    const gAr = new Float64Array(1);
+    const gMa = new Float64Array(1);
+    expect(lik.gradient(gAr, gMa)).toBe(true);
+    const fd = centralDifferences(lik, ar, ma);
+    expect(Math.abs(gAr[0] - fd[0])).toBeLessThan(1e-8);
+    expect(Math.abs(gMa[0] - fd[1])).toBeLessThan(1e-8);
+  });
+
   it('is not offered where the filter has no recorded pass (several regressors)', () => {
     const n = 60;
     const y = Float64Array.from(simulateArma({ ar: [0.5], ma: [], sigma2: 1, mean: 0 }, n, createRng(3)));
