@@ -290,7 +290,8 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const sigma2U = lik.sigma2;
   const loglik = lik.loglikFromObjective(value) - nobs * Math.log(scale);
   const sigma2 = sigma2U * scale * scale;
-  const beta = betaU.map((b, i) => beta0[i] + scale * b);
+  const beta = new Float64Array(k);
+  for (let i = 0; i < k; i++) beta[i] = beta0[i] + scale * betaU[i];
 
   // Standard errors from the numerical Hessian of −log L = nobs · objective (σ² concentrated).
   const se = naturalStandardErrors(lik, arHat, maHat, betaU, nobs);
@@ -334,7 +335,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
     order: { p, d, q },
     includeMean,
     mean: includeMean ? beta[0] : null,
-    xregCoef: beta.slice(includeMean ? 1 : 0),
+    xregCoef: Array.from(beta.subarray(includeMean ? 1 : 0)),
     ar: arHat,
     ma: maHat,
     sigma2,
@@ -391,8 +392,11 @@ function naturalStandardErrors(
   const m = ma0 + k;
   const nan = new Array<number>(m).fill(Number.NaN);
   if (m === 0) return { values: [], ok: true };
-  const z0 = [...ar, ...ma];
-  const h = z0.map(() => 1e-4);
+  // Typed arrays throughout (one element kind, so the optimised code never meets another).
+  const z0 = new Float64Array(ma0);
+  z0.set(ar);
+  z0.set(ma, p);
+  const h = new Float64Array(ma0).fill(1e-4);
   const arW = new Float64Array(p);
   const maW = new Float64Array(q);
   const z = Float64Array.from(z0);

@@ -79,9 +79,14 @@ function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): 
   const P = new Float64Array(D * D);
   const G = new Float64Array(D * D);
   const GP = new Float64Array(D * D);
-  for (let i = 0; i < r; i++) m[i] = state[i] ?? 0;
-  for (let j = 0; j < d; j++) m[r + j] = levels[j] ?? 0;
-  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * D + j] = cov0[i * r + j] ?? 0;
+  // Through typed copies: the stored arrays hold small integers (fallbacks) or doubles.
+  const st = Float64Array.from(state);
+  const lv = Float64Array.from(levels);
+  const c0 = Float64Array.from(cov0);
+  for (let i = 0; i < r; i++) m[i] = i < st.length ? st[i] : 0;
+  for (let j = 0; j < d; j++) m[r + j] = j < lv.length ? lv[j] : 0;
+  for (let i = 0; i < r; i++)
+    for (let j = 0; j < r; j++) P[i * D + j] = i * r + j < c0.length ? c0[i * r + j] : 0;
   // G maps (α, y_{t−1..t−d}, S) at time t to time t + 1 (y_t = α_0 + Σ c_k y_{t−k} + deterministic).
   for (let i = 0; i < r; i++) {
     G[i * D] = phi[i];

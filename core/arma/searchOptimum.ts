@@ -55,10 +55,18 @@ function distinctPush(starts: Float64Array[], x: Float64Array): void {
 }
 
 function toUnconstrained(ar: number[], ma: number[]): Float64Array | null {
-  const ua = ar.length > 0 ? coefficientsToUnconstrained(ar, 0.98) : [];
-  const um = ma.length > 0 ? coefficientsToUnconstrained(ma, 0.98) : [];
-  if (!ua || !um) return null;
-  return Float64Array.from([...ua, ...um]);
+  const x = new Float64Array(ar.length + ma.length);
+  if (ar.length > 0) {
+    const ua = coefficientsToUnconstrained(ar, 0.98);
+    if (!ua) return null;
+    x.set(ua);
+  }
+  if (ma.length > 0) {
+    const um = coefficientsToUnconstrained(ma, 0.98);
+    if (!um) return null;
+    x.set(um, ar.length);
+  }
+  return x;
 }
 
 /** Multiply 1 − Σ c_i z^i by (1 − f z) and return the new c. */
@@ -300,12 +308,16 @@ function search(
   };
   // Larger orders (p + q ≥ NESTED_FROM) are rare and hard: every start runs to convergence there.
   const keep = m >= NESTED_FROM ? starts.length : STAGE2_KEEP;
-  const stage1 = starts
-    .map((x) =>
-      starts.length > keep ? run(x, STAGE1_ITERATIONS, false) : { x, value: objective(x), converged: false },
-    )
-    .filter((r) => Number.isFinite(r.value))
-    .sort((a, b) => a.value - b.value);
+  // One object shape for every candidate (the optimised code then sees one map).
+  const stage1: { x: Float64Array; value: number; converged: boolean }[] = [];
+  for (const x of starts) {
+    const r = starts.length > keep ? run(x, STAGE1_ITERATIONS, false) : null;
+    const c = r
+      ? { x: r.x, value: r.value, converged: r.converged }
+      : { x, value: objective(x), converged: false };
+    if (Number.isFinite(c.value)) stage1.push(c);
+  }
+  stage1.sort((a, b) => a.value - b.value);
   const candidates: { x: Float64Array; value: number; converged: boolean }[] = [];
   for (const r of stage1) {
     if (candidates.length >= keep) break;
