@@ -54,7 +54,7 @@ function distinctPush(starts: Float64Array[], x: Float64Array): void {
   starts.push(x);
 }
 
-function toUnconstrained(ar: number[], ma: number[]): Float64Array | null {
+function toUnconstrained(ar: ArrayLike<number>, ma: ArrayLike<number>): Float64Array | null {
   const x = new Float64Array(ar.length + ma.length);
   if (ar.length > 0) {
     const ua = coefficientsToUnconstrained(ar, 0.98);
@@ -80,7 +80,7 @@ function withFactor(coef: number[], f: number): number[] {
 
 function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Float64Array[] {
   const starts: Float64Array[] = [];
-  const push = (ar: number[], ma: number[]): void => {
+  const push = (ar: ArrayLike<number>, ma: ArrayLike<number>): void => {
     const x = toUnconstrained(ar, ma);
     if (x) distinctPush(starts, x);
   };
@@ -97,14 +97,14 @@ function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Flo
     }
     push(ar, ma);
   }
-  const zeroAr = new Array<number>(p).fill(0);
-  const zeroMa = new Array<number>(q).fill(0);
+  const zeroAr = new Float64Array(p);
+  const zeroMa = new Float64Array(q);
   push(zeroAr, zeroMa);
   if (quick) return starts;
   if (p > 0) {
     const yw = hannanRissanen(u, p, 0);
     if (yw) push(yw.ar, zeroMa);
-    const near = new Array<number>(p).fill(0);
+    const near = new Float64Array(p);
     near[0] = 0.9;
     if (p + q > 2) push(near, zeroMa);
   }
