@@ -101,6 +101,7 @@ export class ArmaLikelihood {
       vy: new Float64Array(n),
       vx: new Float64Array(n),
       missing: new Float64Array(w.some(Number.isNaN) ? 8 * n : 0),
+      end: new Float64Array(12),
     };
   }
 
@@ -512,6 +513,21 @@ export class ArmaLikelihood {
     this.sumLogF = sumLogF + Math.log(prodF);
     this.nobs = nobs;
     this.switchCount = switches;
+    // The predicted state of both columns and the covariance after the last week (what an exact
+    // pass ends on; after a steady stretch that ran to the end they are not kept).
+    const e = this.trace.end;
+    e[0] = a0;
+    e[1] = a1;
+    e[2] = a2;
+    e[3] = b0;
+    e[4] = b1;
+    e[5] = b2;
+    e[6] = p00;
+    e[7] = p01;
+    e[8] = p02;
+    e[9] = p11;
+    e[10] = p12;
+    e[11] = p22;
     return true;
   }
 
@@ -754,6 +770,47 @@ export class ArmaLikelihood {
       for (let i = 0; i < k; i++) inv[i * k + e] = col[i];
     }
     return inv;
+  }
+
+  /**
+   * What detailed(ar, ma, β̂) returns, read from the trace of the pass just run, when that pass was
+   * an exact profile() (disableSteadyState) in passMean3's case (hasGradient) at (ar, ma): the
+   * innovations of u = w − xβ̂ are v_y − β̂ v_x, the predictions of w are w − innovation (on a
+   * missing week a₀ − β̂ b₀ + β̂ x), the variances are F. Null otherwise.
+   */
+  exactOutputs(): ReturnType<ArmaLikelihood['detailed']> {
+    if (!this.hasGradient || this.switchMode !== 2) return null;
+    const { n, r, trace } = this;
+    const w = this.cols[0];
+    const x = this.k > 0 ? this.cols[1] : w;
+    const b = this.k > 0 ? this.beta[0] : 0;
+    const innovations = new Float64Array(n).fill(Number.NaN);
+    const variances = new Float64Array(n).fill(Number.NaN);
+    const predictions = new Float64Array(n);
+    for (let t = 0; t < n; t++) {
+      if (Number.isNaN(w[t])) {
+        const m8 = 8 * t;
+        predictions[t] =
+          this.k > 0 ? trace.missing[m8 + 6] + b * (x[t] - trace.missing[m8 + 7]) : trace.missing[m8 + 6];
+        continue;
+      }
+      const e = trace.vy[t] - b * trace.vx[t];
+      innovations[t] = e;
+      variances[t] = trace.F[t];
+      predictions[t] = w[t] - e;
+    }
+    const end = trace.end;
+    const state: number[] = [];
+    for (let i = 0; i < r; i++) state.push(end[i] - b * end[3 + i]);
+    // end[6..11] = p00 p01 p02 p11 p12 p22: the r × r corner, row-major.
+    const idx = [
+      [6, 7, 8],
+      [7, 9, 10],
+      [8, 10, 11],
+    ];
+    const covariance: number[] = [];
+    for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) covariance.push(end[idx[i][j]]);
+    return { innovations, variances, predictions, state, covariance };
   }
 
   /**

@@ -25,6 +25,8 @@ export interface FilterTrace {
   vx: Float64Array;
   /** 8 numbers per missing week: p00 p01 p02 p11 p12 p22 of the predicted covariance, a0, b0. */
   missing: Float64Array;
+  /** After the last week: a0 a1 a2 b0 b1 b2 (both columns' predicted states), p00 … p22. */
+  end: Float64Array;
 }
 
 /** Scratch for one likelihood's gradients (allocated once per likelihood). */

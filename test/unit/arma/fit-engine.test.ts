@@ -162,6 +162,25 @@ describe('the specialised filter pass (mean or none, r ≤ 3)', () => {
       expect(Math.abs(fast - exact)).toBeLessThan(xcols.length > 0 ? 1e-7 : 1e-6);
       lik.disableSteadyState();
       expect(Math.abs(lik.loglikFromObjective(lik.profile(ar, ma)) - exact)).toBeLessThan(1e-9);
+      // The exact pass's own record (used by fitArma where it exists) equals the detailed pass.
+      const recorded = lik.exactOutputs();
+      if (lik.hasGradient) {
+        expect(recorded).not.toBeNull();
+        const again = lik.detailed(ar, ma, Array.from(lik.beta))!;
+        const close = (a: ArrayLike<number>, b: ArrayLike<number>) => {
+          expect(a.length).toBe(b.length);
+          for (let i = 0; i < a.length; i++) {
+            if (Number.isNaN(b[i])) expect(a[i]).toBeNaN();
+            else expect(Math.abs(a[i] - b[i])).toBeLessThan(1e-9 * Math.max(1, Math.abs(b[i])));
+          }
+        };
+        close(recorded!.innovations, again.innovations);
+        close(recorded!.variances, again.variances);
+        close(recorded!.predictions, again.predictions);
+        close(recorded!.state, again.state);
+        close(recorded!.covariance, again.covariance);
+      } else expect(recorded).toBeNull();
+      lik.releaseSwitches();
     }
   });
 });
