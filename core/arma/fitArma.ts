@@ -285,9 +285,6 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   // The reported likelihood from the full filter (no steady-state shortcut): exact.
   lik.disableSteadyState();
   const value = lik.profile(arHat, maHat);
-  // Innovations, variances, predictions and the end state from that exact pass where it recorded
-  // them (passMean3's case); other models run detailed() below.
-  const exact = lik.exactOutputs();
   lik.releaseSwitches();
   const betaU = Array.from(lik.beta);
   const sigma2U = lik.sigma2;
@@ -300,7 +297,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const se = naturalStandardErrors(lik, arHat, maHat, betaU, nobs);
   if (!se.ok) flags.push('hessian-not-definite');
 
-  const det = exact ?? lik.detailed(arHat, maHat, betaU);
+  const det = lik.detailed(arHat, maHat, betaU);
   const residuals = new Float64Array(n).fill(Number.NaN);
   const standardized = new Float64Array(n).fill(Number.NaN);
   const fitted = new Float64Array(n).fill(Number.NaN);

@@ -31,6 +31,15 @@ import {
 
 const STEADY_TOL = 1e-8;
 
+/** The exact filter's record of a fitted model (detailed()). */
+export interface FilterOutputs {
+  innovations: Float64Array;
+  variances: Float64Array;
+  predictions: Float64Array;
+  state: number[];
+  covariance: number[];
+}
+
 export class ArmaLikelihood {
   readonly n: number;
   readonly p: number;
@@ -469,16 +478,7 @@ export class ArmaLikelihood {
       if (enter && t < n) {
         this.switchLog[switches++] = t;
         const a = this.a;
-        a[0] = a0;
-        a[r] = b0;
-        if (r > 1) {
-          a[1] = a1;
-          a[r + 1] = b1;
-        }
-        if (r > 2) {
-          a[2] = a2;
-          a[r + 2] = b2;
-        }
+        this.storeState3(a0, a1, a2, b0, b1, b2);
         this.syy = 0;
         this.steadyCross = 0;
         this.steadyX = 0;
@@ -611,6 +611,16 @@ export class ArmaLikelihood {
       sxy += vx * vy;
       sxx += vx * vx;
     }
+    this.storeState3(a0, a1, a2, b0, b1, b2);
+    this.syy += syy;
+    this.steadyCross = sxy;
+    this.steadyX = sxx;
+    return t;
+  }
+
+  /** The series' and the mean column's states (r ≤ 3, kept in locals by the passes) into a. */
+  private storeState3(a0: number, a1: number, a2: number, b0: number, b1: number, b2: number): void {
+    const { a, r } = this;
     a[0] = a0;
     a[r] = b0;
     if (r > 1) {
@@ -621,10 +631,6 @@ export class ArmaLikelihood {
       a[2] = a2;
       a[r + 2] = b2;
     }
-    this.syy += syy;
-    this.steadyCross = sxy;
-    this.steadyX = sxx;
-    return t;
   }
 
   /** Steady-state recursion for any number of columns, from step t0. */
@@ -773,17 +779,24 @@ export class ArmaLikelihood {
   }
 
   /**
-   * What detailed(ar, ma, β̂) returns, read from the trace of the pass just run, when that pass was
-   * an exact profile() (disableSteadyState) in passMean3's case (hasGradient) at (ar, ma): the
-   * innovations of u = w − xβ̂ are v_y − β̂ v_x, the predictions of w are w − innovation (on a
-   * missing week a₀ − β̂ b₀ + β̂ x), the variances are F. Null otherwise.
+   * The exact filter (no steady-state shortcut) on u = w − Xβ at (ar, ma): innovations, their
+   * variances (over σ²), one-step predictions of w, and the final predicted state and covariance.
+   * In passMean3's case (hasGradient) that is one exact pass read from its record: the innovations
+   * of the two columns do not depend on β, so those of u are v_y − β v_x; the predictions of w are
+   * w − innovation (on a missing week a₀ + β(x − b₀)); the variances are F. Otherwise fullFilter().
    */
-  exactOutputs(): ReturnType<ArmaLikelihood['detailed']> {
-    if (!this.hasGradient || this.switchMode !== 2) return null;
+  detailed(ar: ArrayLike<number>, ma: ArrayLike<number>, beta: ArrayLike<number>): FilterOutputs | null {
+    if (!this.hasGradient) return this.fullFilter(ar, ma, beta);
+    if (!this.load(ar, ma)) return null;
+    const mode = this.switchMode;
+    this.switchMode = 2;
+    const ok = this.passMean3();
+    this.switchMode = mode;
+    if (!ok) return null;
     const { n, r, trace } = this;
     const w = this.cols[0];
     const x = this.k > 0 ? this.cols[1] : w;
-    const b = this.k > 0 ? this.beta[0] : 0;
+    const b = this.k > 0 ? beta[0] : 0;
     const innovations = new Float64Array(n).fill(Number.NaN);
     const variances = new Float64Array(n).fill(Number.NaN);
     const predictions = new Float64Array(n);
@@ -814,20 +827,10 @@ export class ArmaLikelihood {
   }
 
   /**
-   * Full filter (no steady-state shortcut) on u = w − Xβ, recording innovations, their variances
-   * (over σ²) and one-step predictions of w; returns the final predicted state and covariance.
+   * The dense textbook recursion (Harvey 1989, §3.2) for detailed(), with no shortcut: what every
+   * model outside passMean3's case uses, and the tests' independent reference for the passes.
    */
-  detailed(
-    ar: ArrayLike<number>,
-    ma: ArrayLike<number>,
-    beta: ArrayLike<number>,
-  ): {
-    innovations: Float64Array;
-    variances: Float64Array;
-    predictions: Float64Array;
-    state: number[];
-    covariance: number[];
-  } | null {
+  fullFilter(ar: ArrayLike<number>, ma: ArrayLike<number>, beta: ArrayLike<number>): FilterOutputs | null {
     if (!this.load(ar, ma)) return null;
     const { n, r, cols, phi, P, k } = this;
     const innovations = new Float64Array(n).fill(Number.NaN);

@@ -96,8 +96,8 @@ describe('the Kalman filter', () => {
     const ma = [0.3, -0.2];
     const fast = lik.loglikFromObjective(lik.profile(ar, ma));
     const beta = Array.from(lik.beta);
-    // The detailed pass never switches: the exact likelihood from its innovations.
-    const det = lik.detailed(ar, ma, beta)!;
+    // The full filter never switches: the exact likelihood from its innovations.
+    const det = lik.fullFilter(ar, ma, beta)!;
     let ss = 0;
     let logF = 0;
     for (let t = 0; t < y.length; t++) {
@@ -115,8 +115,8 @@ describe('the Kalman filter', () => {
 });
 
 describe('the specialised filter pass (mean or none, r ≤ 3)', () => {
-  it('agrees with the full filter of detailed() for every order it serves, with and without a mean and missing weeks', () => {
-    // Check value: the exact likelihood from detailed(), the dense textbook recursion
+  it('agrees with the full filter (fullFilter()) for every order it serves, with and without a mean and missing weeks', () => {
+    // Check value: the exact likelihood from fullFilter(), the dense textbook recursion
     // P ← T(P − K Kᵀ F)Tᵀ + R Rᵀ (Harvey 1989, §3.2) with no shortcut.
     const full = simulateArma({ ar: [0.6], ma: [0.4], sigma2: 1, mean: 3 }, 156, 7);
     // The same series with missing weeks early, mid-way (after the steady state) and in a run.
@@ -146,7 +146,7 @@ describe('the specialised filter pass (mean or none, r ≤ 3)', () => {
     ]) as [[number[], number[]], Float64Array[], Float64Array][]) {
       const lik = new ArmaLikelihood(y, xcols, ar.length, ma.length);
       const fast = lik.loglikFromObjective(lik.profile(ar, ma));
-      const det = lik.detailed(ar, ma, Array.from(lik.beta))!;
+      const det = lik.fullFilter(ar, ma, Array.from(lik.beta))!;
       let ss = 0;
       let logF = 0;
       let n = 0;
@@ -162,24 +162,23 @@ describe('the specialised filter pass (mean or none, r ≤ 3)', () => {
       expect(Math.abs(fast - exact)).toBeLessThan(xcols.length > 0 ? 1e-7 : 1e-6);
       lik.disableSteadyState();
       expect(Math.abs(lik.loglikFromObjective(lik.profile(ar, ma)) - exact)).toBeLessThan(1e-9);
-      // The exact pass's own record (used by fitArma where it exists) equals the detailed pass.
-      const recorded = lik.exactOutputs();
-      if (lik.hasGradient) {
-        expect(recorded).not.toBeNull();
-        const again = lik.detailed(ar, ma, Array.from(lik.beta))!;
-        const close = (a: ArrayLike<number>, b: ArrayLike<number>) => {
-          expect(a.length).toBe(b.length);
-          for (let i = 0; i < a.length; i++) {
-            if (Number.isNaN(b[i])) expect(a[i]).toBeNaN();
-            else expect(Math.abs(a[i] - b[i])).toBeLessThan(1e-9 * Math.max(1, Math.abs(b[i])));
-          }
-        };
-        close(recorded!.innovations, again.innovations);
-        close(recorded!.variances, again.variances);
-        close(recorded!.predictions, again.predictions);
-        close(recorded!.state, again.state);
-        close(recorded!.covariance, again.covariance);
-      } else expect(recorded).toBeNull();
+      // detailed() (from the exact pass's own record where there is one) equals the full filter.
+      const beta = Array.from(lik.beta);
+      const recorded = lik.detailed(ar, ma, beta);
+      expect(recorded).not.toBeNull();
+      const again = lik.fullFilter(ar, ma, beta)!;
+      const close = (a: ArrayLike<number>, b: ArrayLike<number>) => {
+        expect(a.length).toBe(b.length);
+        for (let i = 0; i < a.length; i++) {
+          if (Number.isNaN(b[i])) expect(a[i]).toBeNaN();
+          else expect(Math.abs(a[i] - b[i])).toBeLessThan(1e-9 * Math.max(1, Math.abs(b[i])));
+        }
+      };
+      close(recorded!.innovations, again.innovations);
+      close(recorded!.variances, again.variances);
+      close(recorded!.predictions, again.predictions);
+      close(recorded!.state, again.state);
+      close(recorded!.covariance, again.covariance);
       lik.releaseSwitches();
     }
   });
