@@ -285,9 +285,10 @@ describe('lead-time demand: the SUM of the next L weeks', () => {
 describe('search effort', () => {
   it("'quick' (Hannan–Rissanen and zero starts only) spends fewer evaluations and still reaches base R’s optimum on LakeHuron", () => {
     // Check value: our own thorough search (the default), which the reference fixtures tie to base R.
+    // ARMA(2,1): for ARMA(1,1) the thorough search has no zero start, so quick is not a subset there.
     const y = Float64Array.from(LAKE_HURON);
-    const thorough = fitArma(y, { p: 1, d: 0, q: 1 });
-    const quick = fitArma(y, { p: 1, d: 0, q: 1, effort: 'quick' });
+    const thorough = fitArma(y, { p: 2, d: 0, q: 1 });
+    const quick = fitArma(y, { p: 2, d: 0, q: 1, effort: 'quick' });
     expect(quick.converged).toBe(true);
     expect(quick.evaluations).toBeLessThan(thorough.evaluations);
     expect(quick.loglik).toBeGreaterThan(thorough.loglik - 1e-6);
