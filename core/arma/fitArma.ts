@@ -16,6 +16,7 @@ import { difference, integrationWeights } from './difference';
 import type { ArmaLikelihood } from './kalmanLikelihood';
 import { solveNormalEquations } from './leastSquares';
 import { searchOptimum } from './searchOptimum';
+import { float64Block, numberArray } from './typedArrays';
 import type { ArmaFit, ArmaFitOptions } from './types';
 
 const MAX_P = 5;
@@ -143,9 +144,10 @@ function fallbackFit(prep: Prepared, opts: ArmaFitOptions, includeMean: boolean,
   const nparams = kind === 'mean' ? 2 : 1;
   const aic = -2 * loglik + 2 * nparams;
   const denom = nobsFallback - nparams - 1;
-  const residuals = new Float64Array(n).fill(Number.NaN);
-  const standardized = new Float64Array(n).fill(Number.NaN);
-  const fitted = new Float64Array(n).fill(Number.NaN);
+  const [residuals, standardized, fitted] = float64Block([n, n, n]);
+  residuals.fill(Number.NaN);
+  standardized.fill(Number.NaN);
+  fitted.fill(Number.NaN);
   for (let t = 0; t < n; t++) {
     if (kind === 'mean') fitted[t] = level;
     else if (t > 0 && !Number.isNaN(y[t - 1])) fitted[t] = y[t - 1];
@@ -286,7 +288,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   lik.disableSteadyState();
   const value = lik.profile(arHat, maHat);
   lik.releaseSwitches();
-  const betaU = Array.from(lik.beta);
+  const betaU = numberArray(lik.beta);
   const sigma2U = lik.sigma2;
   const loglik = lik.loglikFromObjective(value) - nobs * Math.log(scale);
   const sigma2 = sigma2U * scale * scale;
@@ -298,10 +300,11 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   if (!se.ok) flags.push('hessian-not-definite');
 
   const det = lik.detailed(arHat, maHat, betaU);
-  const residuals = new Float64Array(n).fill(Number.NaN);
-  const standardized = new Float64Array(n).fill(Number.NaN);
-  const fitted = new Float64Array(n).fill(Number.NaN);
-  const yFilled = Float64Array.from(prep.y);
+  const [residuals, standardized, fitted, yFilled] = float64Block([n, n, n, n]);
+  residuals.fill(Number.NaN);
+  standardized.fill(Number.NaN);
+  fitted.fill(Number.NaN);
+  yFilled.set(prep.y);
   const c = integrationWeights(d);
   let state: number[] = new Array<number>(Math.max(p, q + 1)).fill(0);
   let covariance: number[] = [];
@@ -335,7 +338,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
     order: { p, d, q },
     includeMean,
     mean: includeMean ? beta[0] : null,
-    xregCoef: Array.from(beta.subarray(includeMean ? 1 : 0)),
+    xregCoef: numberArray(beta, includeMean ? 1 : 0),
     ar: arHat,
     ma: maHat,
     sigma2,

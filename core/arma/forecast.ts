@@ -9,6 +9,7 @@
  */
 import quantile from '@stdlib/stats-base-dists-normal-quantile';
 import { integrationWeights } from './difference';
+import { float64Block } from './typedArrays';
 import type { ArmaFit } from './types';
 
 interface Propagation {
@@ -101,12 +102,8 @@ function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): 
   for (let k = 0; k < d; k++) G[S * D + r + k] = c[k];
   G[S * D + S] = 1;
 
-  const out: Propagation = {
-    mean: new Float64Array(H),
-    se: new Float64Array(H),
-    sumMean: new Float64Array(H),
-    sumVariance: new Float64Array(H),
-  };
+  const [mean, se, sumMean, sumVariance] = float64Block([H, H, H, H]);
+  const out: Propagation = { mean, se, sumMean, sumVariance };
   const s2 = Math.max(0, fit.sigma2);
   const next = new Float64Array(D);
   for (let h = 0; h < H; h++) {
@@ -184,12 +181,8 @@ export function forecastIntervals(
   se: ArrayLike<number>,
 ): { lower80: Float64Array; upper80: Float64Array; lower95: Float64Array; upper95: Float64Array } {
   const n = mean.length;
-  const out = {
-    lower80: new Float64Array(n),
-    upper80: new Float64Array(n),
-    lower95: new Float64Array(n),
-    upper95: new Float64Array(n),
-  };
+  const [lower80, upper80, lower95, upper95] = float64Block([n, n, n, n]);
+  const out = { lower80, upper80, lower95, upper95 };
   for (let h = 0; h < n; h++) {
     out.lower80[h] = mean[h] - Z80 * se[h];
     out.upper80[h] = mean[h] + Z80 * se[h];

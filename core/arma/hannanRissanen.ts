@@ -5,13 +5,14 @@
  * In the ma-minus convention u_t = Σ φ_i u_{t−i} + e_t − Σ θ_j e_{t−j}, so θ_j = −(coefficient
  * of ê_{t−j}). u is the mean-removed series; missing values count as zero deviations.
  */
+
 import { solveNormalEquations } from './leastSquares';
 import { sampleAutocovariance } from './sampleAutocovariance';
+import { float64Block, numberArray } from './typedArrays';
 
 /** Yule–Walker AR(m) coefficients by the Durbin–Levinson recursion (Durbin 1960). */
 export function yuleWalker(gamma: Float64Array, m: number): Float64Array {
-  const phi = new Float64Array(m);
-  const prev = new Float64Array(m);
+  const [phi, prev] = float64Block([m, m]);
   let v = gamma[0];
   for (let k = 0; k < m; k++) {
     if (!(v > 0)) break;
@@ -47,13 +48,13 @@ function zeroFilled(u: Float64Array): Float64Array {
 /** Stage 1 for ARMA(p, q): null when the series is too short or has no variance. */
 export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage1 | null {
   const n = u.length;
-  const x = zeroFilled(u);
   const m = longArOrder(n, p, q);
   if (m >= n - 1) return null;
+  const [x, e] = float64Block([n, n]);
+  for (let t = 0; t < n; t++) x[t] = Number.isNaN(u[t]) ? 0 : u[t];
   const gamma = sampleAutocovariance(x, Math.min(n - 1, m), false);
   if (!(gamma[0] > 0)) return null;
   const longAr = yuleWalker(gamma, m);
-  const e = new Float64Array(n);
   for (let t = m; t < n; t++) {
     let s = x[t];
     for (let j = 0; j < m; j++) s -= longAr[j] * x[t - 1 - j];
@@ -64,7 +65,8 @@ export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage
 
 /**
  * Hannan–Rissanen estimates of ARMA(p, q); `stage1` (from hannanStage1 on the same u) is reused
- * when its long-AR order is the one this order needs, so several orders share the first stage.
+ * when its long-AR order is the one this order needs, so several orders share the first stage
+ * (and for a pure AR its zero-filled series).
  */
 export function hannanRissanen(
   u: Float64Array,
@@ -75,11 +77,11 @@ export function hannanRissanen(
   const n = u.length;
   if (q === 0) {
     // Pure AR: Yule–Walker directly (the second stage would only repeat the regression).
-    const x = zeroFilled(u);
+    const x = stage1 ? stage1.x : zeroFilled(u);
     const gamma = sampleAutocovariance(x, Math.min(n - 1, p), false);
     if (!(gamma[0] > 0)) return null;
     const phi = yuleWalker(gamma, p);
-    return { ar: Array.from(phi), ma: [] };
+    return { ar: numberArray(phi), ma: [] };
   }
   const m = longArOrder(n, p, q);
   const st = stage1 && stage1.m === m ? stage1 : hannanStage1(u, p, q);

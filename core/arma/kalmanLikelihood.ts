@@ -17,6 +17,7 @@
  * MA part away from the unit circle) the gain is constant (K = R, F = 1) and the filter switches
  * to the steady-state recursion until the next missing week.
  */
+
 import {
   createGradientWorkspace,
   type FilterTrace,
@@ -28,6 +29,7 @@ import {
   type LyapunovWorkspace,
   stationaryCovariance,
 } from './stationaryCovariance';
+import { float64Block } from './typedArrays';
 
 const STEADY_TOL = 1e-8;
 
@@ -103,15 +105,10 @@ export class ArmaLikelihood {
     this.beta = new Float64Array(this.k);
     this.chol = new Float64Array(this.k * this.k);
     const n = this.n;
-    this.trace = {
-      F: new Float64Array(n),
-      k1: new Float64Array(n),
-      k2: new Float64Array(n),
-      vy: new Float64Array(n),
-      vx: new Float64Array(n),
-      missing: new Float64Array(w.some(Number.isNaN) ? 8 * n : 0),
-      end: new Float64Array(12),
-    };
+    let missing = 0;
+    for (let t = 0; t < n; t++) if (Number.isNaN(w[t])) missing = 8 * n;
+    const [F, k1, k2, vy, vx, missingRecord, end] = float64Block([n, n, n, n, n, missing, 12]);
+    this.trace = { F, k1, k2, vy, vx, missing: missingRecord, end };
   }
 
   /** The switch steps of the last pass (the starts of its steady-state stretches). */
@@ -797,9 +794,9 @@ export class ArmaLikelihood {
     const w = this.cols[0];
     const x = this.k > 0 ? this.cols[1] : w;
     const b = this.k > 0 ? beta[0] : 0;
-    const innovations = new Float64Array(n).fill(Number.NaN);
-    const variances = new Float64Array(n).fill(Number.NaN);
-    const predictions = new Float64Array(n);
+    const [innovations, variances, predictions] = float64Block([n, n, n]);
+    innovations.fill(Number.NaN);
+    variances.fill(Number.NaN);
     for (let t = 0; t < n; t++) {
       if (Number.isNaN(w[t])) {
         const m8 = 8 * t;
@@ -833,9 +830,10 @@ export class ArmaLikelihood {
   fullFilter(ar: ArrayLike<number>, ma: ArrayLike<number>, beta: ArrayLike<number>): FilterOutputs | null {
     if (!this.load(ar, ma)) return null;
     const { n, r, cols, phi, P, k } = this;
-    const innovations = new Float64Array(n).fill(Number.NaN);
-    const variances = new Float64Array(n).fill(Number.NaN);
-    const predictions = new Float64Array(n).fill(Number.NaN);
+    const [innovations, variances, predictions] = float64Block([n, n, n]);
+    innovations.fill(Number.NaN);
+    variances.fill(Number.NaN);
+    predictions.fill(Number.NaN);
     const a = new Float64Array(r);
     const Kc = new Float64Array(r);
     for (let t = 0; t < n; t++) {

@@ -17,6 +17,15 @@ export function sampleAutocovariance(x: ArrayLike<number>, maxLag: number, demea
   const mean = demean && count > 0 ? sum / count : 0;
   const out = new Float64Array(maxLag + 1);
   if (count === 0) return out;
+  if (count === n) {
+    // No missing point: the same sums without the tests.
+    for (let k = 0; k <= maxLag; k++) {
+      let s = 0;
+      for (let t = k; t < n; t++) s += (x[t] - mean) * (x[t - k] - mean);
+      out[k] = s / count;
+    }
+    return out;
+  }
   for (let k = 0; k <= maxLag; k++) {
     let s = 0;
     for (let t = k; t < n; t++) {

@@ -23,6 +23,7 @@ import {
   unconstrainedJacobian,
   unconstrainedToCoefficients,
 } from './partialAutocorrelations';
+import { numberArray } from './typedArrays';
 
 const ABANDON_RADIUS = 0.05;
 const GRAD_STEP = 1e-6;
@@ -107,7 +108,7 @@ function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Flo
   if (quick || p !== 1 || q !== 1) push(zeroAr, zeroMa);
   if (quick) return starts;
   if (p > 0) {
-    const yw = hannanRissanen(u, p, 0);
+    const yw = hannanRissanen(u, p, 0, stage1);
     if (yw) push(yw.ar, zeroMa);
     const near = new Float64Array(p);
     near[0] = 0.9;
@@ -349,5 +350,5 @@ function search(
   }
   if (!best) return null;
   toCoefficients(best.x);
-  return { lik, ar: Array.from(ar), ma: Array.from(ma), value: best.value, converged: best.converged };
+  return { lik, ar: numberArray(ar), ma: numberArray(ma), value: best.value, converged: best.converged };
 }

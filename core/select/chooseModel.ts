@@ -1,3 +1,4 @@
+import { numberArray } from '../arma/typedArrays';
 import type { ArmaFit } from '../arma/types';
 import { classifyDemand, type DemandProfile } from '../intermittent/demandClass';
 import { fitSparseDemand } from '../intermittent/sparseMethod';
@@ -150,7 +151,7 @@ export function chooseModel(
       fit = null;
     }
     if (!fit) return fallbackChoice(series, base, [], 'every observed week has the same value');
-    const fitted = Array.from(fit.fitted);
+    const fitted = numberArray(fit.fitted);
     return {
       ...base,
       kind: fit.fallback ? 'fallback' : 'arma',
@@ -371,7 +372,7 @@ export function chooseModel(
     );
   }
   const fit = chosen.fit;
-  const fitted = Array.from(fit.fitted);
+  const fitted = numberArray(fit.fitted);
   const kind = fit.fallback ? 'fallback' : 'arma';
   const candidates = recordOf(order, chosen, screenedOnly(screened, cache));
   return {
@@ -579,7 +580,7 @@ function forcedChoice(
   }
   if (!fit)
     return fallbackChoice(series, base, [], `the forced ARIMA(${order.p},${order.d},${order.q}) failed`);
-  const fitted = Array.from(fit.fitted);
+  const fitted = numberArray(fit.fitted);
   return {
     ...base,
     kind: fit.fallback ? 'fallback' : 'arma',

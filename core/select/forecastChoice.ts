@@ -1,5 +1,6 @@
 import { windowSumVariance } from '../arma/leadTimeSum';
 import { psiWeights } from '../arma/psi';
+import { float64Block } from '../arma/typedArrays';
 import { sbaWindowVariance } from '../intermittent/sba';
 import { forecastArma, leadTimeMoments } from './engine';
 import { futureFourierColumns } from './fourier';
@@ -24,8 +25,7 @@ export interface ChoiceForecast {
 
 export function forecastChoice(choice: ModelChoice, horizon: number): ChoiceForecast {
   const h = Math.max(0, Math.floor(horizon));
-  const mean = new Float64Array(h);
-  const se = new Float64Array(h);
+  const [mean, se] = float64Block([h, h]);
   if (choice.kind === 'intermittent' && choice.intermittent) {
     const s = choice.intermittent;
     mean.fill(s.forecast);
