@@ -1,8 +1,9 @@
 /**
  * Quasi-Newton minimisation by BFGS (Broyden 1970, Fletcher 1970, Goldfarb 1970, Shanno 1970),
  * inverse-Hessian form with the initial scaling sᵀy / yᵀy and a backtracking Armijo line search
- * (Nocedal & Wright 2006, "Numerical Optimization", Alg. 6.1 and §6.1). Gradients by central
- * differences. Small and allocation-light: it runs once per start per series.
+ * (Nocedal & Wright 2006, "Numerical Optimization", Alg. 6.1 and §6.1), or a given start for the
+ * inverse Hessian. Gradients by central differences unless given. Small and allocation-light: it
+ * runs once per start per series.
  */
 
 export interface BfgsOptions {
@@ -23,6 +24,11 @@ export interface BfgsOptions {
   isConverged?: (x: Float64Array, g: Float64Array) => boolean;
   /** Largest change of any coordinate in one line search step. */
   maxStep: number;
+  /**
+   * Writes a start for the inverse Hessian (m × m, row-major) at x0 and returns true, or returns
+   * false for the default (the identity, rescaled by sᵀy / yᵀy after the first step).
+   */
+  initialInverseHessian?: (x0: Float64Array, out: Float64Array) => boolean;
 }
 
 export interface BfgsResult {
@@ -58,6 +64,7 @@ export function bfgsMinimize(
     abandon: options.abandon,
     gradient: options.gradient,
     isConverged: options.isConverged,
+    initialInverseHessian: options.initialInverseHessian,
   };
   const m = x0.length;
   const x = Float64Array.from(x0);
@@ -121,11 +128,13 @@ export function bfgsMinimize(
   };
 
   gradient(x, g);
-  resetH(1);
+  // `first`: the curvature model is still the scaled identity, to be rescaled after one step.
+  let first = true;
+  if (o.initialInverseHessian?.(x, H)) first = false;
+  else resetH(1);
   let converged = false;
   let smallSteps = 0;
   let iterations = 0;
-  let first = true;
   for (; iterations < o.maxIterations; iterations++) {
     let gmax = 0;
     for (let i = 0; i < m; i++) gmax = Math.max(gmax, Math.abs(g[i]));

@@ -62,7 +62,7 @@ export function unconstrainedJacobian(
 /** Partial autocorrelations of a polynomial (step-down recursion); null if not strictly inside. */
 export function coefficientsToPartials(coef: ArrayLike<number>): Float64Array | null {
   const k = coef.length;
-  const c = Float64Array.from(coef);
+  const c = new Float64Array(coef);
   const pi = new Float64Array(k);
   const next = new Float64Array(k);
   for (let j = k - 1; j >= 0; j--) {

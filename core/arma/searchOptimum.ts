@@ -80,7 +80,13 @@ function withFactor(coef: number[], f: number): number[] {
   return out;
 }
 
-function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Float64Array[] {
+/** The basic starts, and which of them (if any) is the Hannan–Rissanen one. */
+function basicStarts(
+  u: Float64Array,
+  p: number,
+  q: number,
+  quick: boolean,
+): { starts: Float64Array[]; fromHannanRissanen: Float64Array | null } {
   const starts: Float64Array[] = [];
   const push = (ar: ArrayLike<number>, ma: ArrayLike<number>): void => {
     const x = toUnconstrained(ar, ma);
@@ -99,6 +105,7 @@ function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Flo
     }
     push(ar, ma);
   }
+  const fromHannanRissanen = starts.length > 0 ? starts[0] : null;
   const zeroAr = new Float64Array(p);
   const zeroMa = new Float64Array(q);
   // ARMA(1,1) (thorough) goes without the zero start, which lies between the pure-AR and pure-MA
@@ -106,7 +113,7 @@ function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Flo
   // lowered the optimum on one series (by 0.76, still above base R's) and cut the search's
   // evaluations by a fifth (43.6 → 35.7 per fit).
   if (quick || p !== 1 || q !== 1) push(zeroAr, zeroMa);
-  if (quick) return starts;
+  if (quick) return { starts, fromHannanRissanen };
   if (p > 0) {
     const yw = hannanRissanen(u, p, 0, stage1);
     if (yw) push(yw.ar, zeroMa);
@@ -118,7 +125,28 @@ function basicStarts(u: Float64Array, p: number, q: number, quick: boolean): Flo
     const hm = hannanRissanen(u, 0, q, stage1);
     if (hm) push(zeroAr, hm.ma);
   }
-  return starts;
+  return { starts, fromHannanRissanen };
+}
+
+/**
+ * Inverse of the asymptotic information of ARMA(1,1) per observation in u = atanh(π) (here π = φ,
+ * θ): I(φ, θ) = [[1/(1−φ²), −1/(1−φθ)], [−1/(1−φθ), 1/(1−θ²)]] (Box, Jenkins & Reinsel, §7.2.6, in
+ * the ma-minus convention), which is the expected Hessian of the concentrated objective, times the
+ * Jacobian diag(1−φ², 1−θ²) on both sides. False near a common factor (φ ≈ θ), where I is singular.
+ */
+export function arma11InverseInformation(x: Float64Array, out: Float64Array): boolean {
+  const phi = Math.tanh(x[0]);
+  const theta = Math.tanh(x[1]);
+  const a = 1 - phi * phi;
+  const c = 1 - theta * theta;
+  const b = (-a * c) / (1 - phi * theta);
+  const det = a * c - b * b;
+  if (!(det > 1e-3 * a * c)) return false;
+  out[0] = c / det;
+  out[1] = -b / det;
+  out[2] = -b / det;
+  out[3] = a / det;
+  return true;
 }
 
 const PRIMES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29];
@@ -259,7 +287,7 @@ function search(
     return true;
   };
 
-  const starts = basicStarts(u, p, q, effort === 'quick');
+  const { starts, fromHannanRissanen } = basicStarts(u, p, q, effort === 'quick');
   const thorough = effort === 'thorough';
   if (thorough && p + q >= NESTED_FROM && p > 0 && q > 0) {
     const lower = searchOptimum(u, xcols, p - 1, q - 1, maxIterations, cache);
@@ -296,6 +324,11 @@ function search(
       maxIterations: iterations,
       gradient,
       isConverged,
+      // ARMA(1,1) from the Hannan–Rissanen start, usually in the basin of the optimum, starts
+      // with the inverse information: 35.7 → 32.9 evaluations and 23.9 → 21.1 gradients per fit.
+      // (From every start it saved a third, but moved one of 3,000 simulated series below base R.)
+      initialInverseHessian:
+        p === 1 && q === 1 && start === fromHannanRissanen ? arma11InverseInformation : undefined,
       valueTolerance: 1e-10,
       abandon: found.length
         ? (x, v) => {
