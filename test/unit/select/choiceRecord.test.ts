@@ -1,5 +1,5 @@
 /**
- * Helpers of the fit command's record: week labels stepped through the calendar, and the
+ * Helpers of the fit command's record: week labels (made once per calendar week), and the
  * non-finite-to-null copy (JSON has no NaN or Infinity).
  */
 import { describe, expect, it } from 'vitest';
