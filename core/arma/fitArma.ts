@@ -284,12 +284,15 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const best = search;
   const arHat = search.ar;
   const maHat = search.ma;
-  // The reported likelihood from the full filter (no steady-state shortcut): exact.
-  lik.disableSteadyState();
-  const value = lik.profile(arHat, maHat);
-  lik.releaseSwitches();
-  const betaU = numberArray(lik.beta);
-  const sigma2U = lik.sigma2;
+  // The reported likelihood, β̂ and the filter's outputs from one exact pass (no steady-state
+  // shortcut), taken before the Hessian's passes.
+  const exact = lik.exactFit(arHat, maHat);
+  if (!exact) {
+    flags.push('filter-failed');
+    return fallbackFit(prep, opts, includeMean, flags);
+  }
+  const { value, sigma2: sigma2U, outputs: det } = exact;
+  const betaU = exact.beta;
   const loglik = lik.loglikFromObjective(value) - nobs * Math.log(scale);
   const sigma2 = sigma2U * scale * scale;
   const beta = new Float64Array(k);
@@ -299,7 +302,6 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const se = naturalStandardErrors(lik, arHat, maHat, betaU, nobs);
   if (!se.ok) flags.push('hessian-not-definite');
 
-  const det = lik.detailed(arHat, maHat, betaU);
   const [residuals, standardized, fitted, yFilled] = float64Block([n, n, n, n]);
   residuals.fill(Number.NaN);
   standardized.fill(Number.NaN);

@@ -29,11 +29,11 @@ import {
   type LyapunovWorkspace,
   stationaryCovariance,
 } from './stationaryCovariance';
-import { float64Block } from './typedArrays';
+import { float64Block, numberArray } from './typedArrays';
 
 const STEADY_TOL = 1e-8;
 
-/** The exact filter's record of a fitted model (detailed()). */
+/** The exact filter's record of a fitted model (exactFit()). */
 export interface FilterOutputs {
   innovations: Float64Array;
   variances: Float64Array;
@@ -776,20 +776,32 @@ export class ArmaLikelihood {
   }
 
   /**
-   * The exact filter (no steady-state shortcut) on u = w − Xβ at (ar, ma): innovations, their
-   * variances (over σ²), one-step predictions of w, and the final predicted state and covariance.
-   * In passMean3's case (hasGradient) that is one exact pass read from its record: the innovations
-   * of the two columns do not depend on β, so those of u are v_y − β v_x; the predictions of w are
-   * w − innovation (on a missing week a₀ + β(x − b₀)); the variances are F. Otherwise fullFilter().
+   * The fitted model's exact figures at (ar, ma), from one exact pass (no steady-state shortcut):
+   * the objective with β by GLS (as profile() gives it), β̂ and σ̂², and the filter's outputs on
+   * u = w − Xβ̂: innovations, their variances (over σ²), one-step predictions of w, and the final
+   * predicted state and covariance. In passMean3's case (hasGradient) the outputs are read from that
+   * pass's record: the innovations of the two columns do not depend on β, so those of u are
+   * v_y − β v_x; the predictions of w are w − innovation (on a missing week a₀ + β(x − b₀)); the
+   * variances are F. Otherwise they come from fullFilter(), a second pass. Null when the parameters
+   * are not admissible.
    */
-  detailed(ar: ArrayLike<number>, ma: ArrayLike<number>, beta: ArrayLike<number>): FilterOutputs | null {
-    if (!this.hasGradient) return this.fullFilter(ar, ma, beta);
-    if (!this.load(ar, ma)) return null;
+  exactFit(
+    ar: ArrayLike<number>,
+    ma: ArrayLike<number>,
+  ): { value: number; beta: number[]; sigma2: number; outputs: FilterOutputs | null } | null {
     const mode = this.switchMode;
     this.switchMode = 2;
-    const ok = this.passMean3();
+    const value = this.profile(ar, ma);
     this.switchMode = mode;
-    if (!ok) return null;
+    if (!Number.isFinite(value)) return null;
+    const beta = numberArray(this.beta);
+    const sigma2 = this.sigma2;
+    const outputs = this.hasGradient ? this.outputsFromRecord(beta) : this.fullFilter(ar, ma, beta);
+    return { value, beta, sigma2, outputs };
+  }
+
+  /** exactFit()'s outputs at β from the record of the last passMean3 pass, which was exact. */
+  private outputsFromRecord(beta: ArrayLike<number>): FilterOutputs {
     const { n, r, trace } = this;
     const w = this.cols[0];
     const x = this.k > 0 ? this.cols[1] : w;
@@ -824,7 +836,7 @@ export class ArmaLikelihood {
   }
 
   /**
-   * The dense textbook recursion (Harvey 1989, §3.2) for detailed(), with no shortcut: what every
+   * The dense textbook recursion (Harvey 1989, §3.2) for exactFit(), with no shortcut: what every
    * model outside passMean3's case uses, and the tests' independent reference for the passes.
    */
   fullFilter(ar: ArrayLike<number>, ma: ArrayLike<number>, beta: ArrayLike<number>): FilterOutputs | null {

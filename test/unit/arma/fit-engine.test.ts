@@ -162,9 +162,15 @@ describe('the specialised filter pass (mean or none, r ≤ 3)', () => {
       expect(Math.abs(fast - exact)).toBeLessThan(xcols.length > 0 ? 1e-7 : 1e-6);
       lik.disableSteadyState();
       expect(Math.abs(lik.loglikFromObjective(lik.profile(ar, ma)) - exact)).toBeLessThan(1e-9);
-      // detailed() (from the exact pass's own record where there is one) equals the full filter.
       const beta = Array.from(lik.beta);
-      const recorded = lik.detailed(ar, ma, beta);
+      lik.releaseSwitches();
+      // exactFit(): the exact objective and β̂, and outputs (from the exact pass's own record where
+      // there is one) equal to the full filter's at that β̂.
+      const fitted = lik.exactFit(ar, ma);
+      expect(fitted).not.toBeNull();
+      expect(Math.abs(lik.loglikFromObjective(fitted!.value) - exact)).toBeLessThan(1e-9);
+      for (let i = 0; i < beta.length; i++) expect(fitted!.beta[i]).toBeCloseTo(beta[i], 12);
+      const recorded = fitted!.outputs;
       expect(recorded).not.toBeNull();
       const again = lik.fullFilter(ar, ma, beta)!;
       const close = (a: ArrayLike<number>, b: ArrayLike<number>) => {
@@ -179,7 +185,6 @@ describe('the specialised filter pass (mean or none, r ≤ 3)', () => {
       close(recorded!.predictions, again.predictions);
       close(recorded!.state, again.state);
       close(recorded!.covariance, again.covariance);
-      lik.releaseSwitches();
     }
   });
 });
