@@ -121,8 +121,7 @@ export function chooseModel(
     const name =
       sba.method === 'tsb' ? `TSB with α = ${sba.alpha}, β = ${sba.beta}` : `SBA with α = ${sba.alpha}`;
     const mse = (v: number): string => v.toPrecision(4);
-    return {
-      ...base,
+    return withBase(base, {
       kind: 'intermittent',
       order: { p: 0, d: 0, q: 0 },
       seasonalHarmonics: 0,
@@ -139,7 +138,7 @@ export function chooseModel(
       fitted,
       residuals: residualsOf(series, fitted),
       seasonalScreen: null,
-    };
+    });
   }
 
   if (isConstant(series)) {
@@ -152,8 +151,7 @@ export function chooseModel(
     }
     if (!fit) return fallbackChoice(series, base, [], 'every observed week has the same value');
     const fitted = numberArray(fit.fitted);
-    return {
-      ...base,
+    return withBase(base, {
       kind: fit.fallback ? 'fallback' : 'arma',
       order: { p: 0, d: 0, q: 0 },
       seasonalHarmonics: 0,
@@ -177,7 +175,7 @@ export function chooseModel(
       fitted,
       residuals: residualsOf(series, fitted),
       seasonalScreen: null,
-    };
+    });
   }
 
   const { d, tests } =
@@ -375,8 +373,7 @@ export function chooseModel(
   const fitted = numberArray(fit.fitted);
   const kind = fit.fallback ? 'fallback' : 'arma';
   const candidates = recordOf(order, chosen, screenedOnly(screened, cache));
-  return {
-    ...base,
+  return withBase(base, {
     kind,
     order: { p: chosen.p, d, q: chosen.q },
     seasonalHarmonics: chosen.k,
@@ -393,7 +390,7 @@ export function chooseModel(
     fitted,
     residuals: residualsOf(series, fitted),
     seasonalScreen: screen,
-  };
+  });
 }
 
 /**
@@ -581,10 +578,9 @@ function forcedChoice(
   if (!fit)
     return fallbackChoice(series, base, [], `the forced ARIMA(${order.p},${order.d},${order.q}) failed`);
   const fitted = numberArray(fit.fitted);
-  return {
-    ...base,
+  return withBase(base, {
     kind: fit.fallback ? 'fallback' : 'arma',
-    order: { ...order },
+    order: { p: order.p, d: order.d, q: order.q },
     seasonalHarmonics: k,
     includeMean,
     fit,
@@ -594,7 +590,7 @@ function forcedChoice(
       search: 'forced',
       candidates: [
         {
-          order: { ...order },
+          order: { p: order.p, d: order.d, q: order.q },
           seasonalHarmonics: k,
           includeMean,
           aicc: Number.isFinite(fit.aicc) ? fit.aicc : null,
@@ -606,7 +602,7 @@ function forcedChoice(
     fitted,
     residuals: residualsOf(series, fitted),
     seasonalScreen: null,
-  };
+  });
 }
 
 interface BaseFields {
@@ -615,6 +611,32 @@ interface BaseFields {
   lastWeekStart: string;
   historyWeeks: number;
   observedWeeks: number;
+}
+
+/**
+ * A choice from the item's base fields and the rest, every field named in one fixed order: one
+ * object shape for every kind of choice, built without the generic copy a spread costs.
+ */
+function withBase(base: BaseFields, c: Omit<ModelChoice, keyof BaseFields>): ModelChoice {
+  return {
+    demandClass: base.demandClass,
+    demand: base.demand,
+    lastWeekStart: base.lastWeekStart,
+    historyWeeks: base.historyWeeks,
+    observedWeeks: base.observedWeeks,
+    kind: c.kind,
+    order: c.order,
+    seasonalHarmonics: c.seasonalHarmonics,
+    includeMean: c.includeMean,
+    fit: c.fit,
+    intermittent: c.intermittent,
+    fallbackLevel: c.fallbackLevel,
+    selection: c.selection,
+    differencing: c.differencing,
+    fitted: c.fitted,
+    residuals: c.residuals,
+    seasonalScreen: c.seasonalScreen,
+  };
 }
 
 /** Last resort when no model fits: the mean of the observed weeks (or the last value) with the history's spread. */
@@ -642,8 +664,7 @@ function fallbackChoice(
   // for a placeholder; flagged for review).
   if (!(sd > 0)) sd = Math.max(Math.abs(Number.isFinite(last) ? last : mean) / 10, 1e-6);
   const fitted = Array.from(series, () => mean);
-  return {
-    ...base,
+  return withBase(base, {
     kind: 'fallback',
     order: { p: 0, d: 0, q: 0 },
     seasonalHarmonics: 0,
@@ -656,7 +677,7 @@ function fallbackChoice(
     fitted,
     residuals: residualsOf(series, fitted),
     seasonalScreen: null,
-  };
+  });
 }
 
 function isConstant(y: Float64Array): boolean {
