@@ -131,10 +131,12 @@ function basicStarts(
 }
 
 /**
- * Inverse of the asymptotic information of ARMA(1,1) per observation in u = atanh(π) (here π = φ,
- * θ): I(φ, θ) = [[1/(1−φ²), −1/(1−φθ)], [−1/(1−φθ), 1/(1−θ²)]] (Box, Jenkins & Reinsel, §7.2.6, in
- * the ma-minus convention), which is the expected Hessian of the concentrated objective, times the
- * Jacobian diag(1−φ², 1−θ²) on both sides. False near a common factor (φ ≈ θ), where I is singular.
+ * The inverse of J I(φ, θ) J, the expected Hessian of ARMA(1,1)'s concentrated objective in
+ * u = atanh(π) (for one coefficient π is the coefficient itself, so J = diag(1−φ², 1−θ²)), where
+ * I(φ, θ) = [[1/(1−φ²), −1/(1−φθ)], [−1/(1−φθ), 1/(1−θ²)]] is the large-sample information per
+ * observation in the ma-minus convention (Box, Jenkins & Reinsel, "Time Series Analysis", ch. 7;
+ * the chapter from memory; test/unit/arma/search-start.test.ts checks it against the numerical
+ * Hessian). False near a common factor (φ ≈ θ), where I is singular.
  */
 export function arma11InverseInformation(x: Float64Array, out: Float64Array): boolean {
   const phi = Math.tanh(x[0]);

@@ -2,7 +2,7 @@
  * The search's curvature start for ARMA(1,1) (searchOptimum.ts arma11InverseInformation) and
  * BFGS's use of a given inverse Hessian (bfgs.ts).
  * Check values: the definitions. The expected Hessian of the concentrated objective
- * ½ log σ̂² + ½ Σ log F / n is the information per observation (Box, Jenkins & Reinsel, §7.2.6),
+ * ½ log σ̂² + ½ Σ log F / n is the information per observation (Box, Jenkins & Reinsel, ch. 7),
  * so on a long simulated series the numerical Hessian at the true parameters must approach the
  * inverse of what the start gives; and BFGS started with the exact inverse Hessian of a quadratic
  * takes one Newton step to its minimum.
