@@ -1,0 +1,119 @@
+/**
+ * A curvature start for the search: the inverse of the expected Hessian of the concentrated
+ * objective ½ log σ̂² + ½ Σ log F / n at u, in the unconstrained coordinates u of
+ * partialAutocorrelations.ts. That Hessian is Jᵀ I J, with J = ∂(φ, θ)/∂u and I the large-sample
+ * information of the ARMA(p,q) per observation (Box, Jenkins & Reinsel, "Time Series Analysis",
+ * ch. 7; the chapter from memory; test/unit/arma/search-start.test.ts checks the result against the
+ * numerical Hessian of the objective). In the ma-minus convention ∂e_t/∂φ_i = −x_{t−i} with
+ * x = e/φ(B), and ∂e_t/∂θ_j = w_{t−j} with w = e/θ(B), so with the ψ-weights α of 1/φ(B) and β of
+ * 1/θ(B):
+ *   I_φφ[i][k] = Σ_m α_m α_{m+|i−k|},  I_θθ[j][l] = Σ_m β_m β_{m+|j−l|},
+ *   I_φθ[i][j] = −Σ_m α_m β_{m+i−j} (terms with a negative index are zero).
+ * The sums run to M terms; every start lies inside |π| ≤ 0.98, where the tail is below 1e-6.
+ */
+
+import { unconstrainedJacobian, unconstrainedToCoefficients } from './partialAutocorrelations';
+import { psiWeights } from './psi';
+
+const M = 400;
+
+/**
+ * Writes the inverse of Jᵀ I J at u (p AR then q MA coordinates) into out (m × m, row-major,
+ * m = p + q) and returns true; false when that Hessian is (nearly) singular, as near a common
+ * AR/MA factor, or not finite.
+ */
+export function inverseInformationStart(p: number, q: number, u: Float64Array, out: Float64Array): boolean {
+  const m = p + q;
+  if (m === 0) return false;
+  const k = Math.max(p, q, 1);
+  const work = new Float64Array(k * (k + 2));
+  const ar = new Float64Array(p);
+  const ma = new Float64Array(q);
+  unconstrainedToCoefficients(u, 0, p, ar, 0, work);
+  unconstrainedToCoefficients(u, p, q, ma, 0, work);
+  // ψ-weights of 1/φ(B) and of 1/θ(B) (θ(B) has the AR polynomial's form).
+  const alpha = psiWeights(ar, [], M + m);
+  const beta = psiWeights(ma, [], M + m);
+  const cross = (a: Float64Array, b: Float64Array, lag: number): number => {
+    // Σ_m a_m b_{m+lag} for lag ≥ 0.
+    let s = 0;
+    for (let i = 0; i < M; i++) s += a[i] * b[i + lag];
+    return s;
+  };
+  const info = new Float64Array(m * m);
+  for (let i = 0; i < p; i++)
+    for (let j = 0; j < p; j++) info[i * m + j] = cross(alpha, alpha, Math.abs(i - j));
+  for (let i = 0; i < q; i++)
+    for (let j = 0; j < q; j++) info[(p + i) * m + p + j] = cross(beta, beta, Math.abs(i - j));
+  for (let i = 0; i < p; i++) {
+    for (let j = 0; j < q; j++) {
+      // −E[x_{t−1−i} w_{t−1−j}] / σ²: Σ α_s β_{s+i−j} for i ≥ j, Σ β_s α_{s+j−i} otherwise.
+      const v = -(i >= j ? cross(alpha, beta, i - j) : cross(beta, alpha, j - i));
+      info[i * m + p + j] = v;
+      info[(p + j) * m + i] = v;
+    }
+  }
+  // J is block diagonal: the AR block and the MA block of the partial-autocorrelation map.
+  const J = new Float64Array(m * m);
+  const block = new Float64Array(k * k);
+  for (const [offset, size] of [
+    [0, p],
+    [p, q],
+  ]) {
+    if (size === 0) continue;
+    unconstrainedJacobian(u, offset, size, block, work);
+    for (let i = 0; i < size; i++)
+      for (let l = 0; l < size; l++) J[(offset + i) * m + offset + l] = block[i * size + l];
+  }
+  // H = Jᵀ I J.
+  const IJ = new Float64Array(m * m);
+  for (let i = 0; i < m; i++)
+    for (let l = 0; l < m; l++) {
+      let s = 0;
+      for (let r = 0; r < m; r++) s += info[i * m + r] * J[r * m + l];
+      IJ[i * m + l] = s;
+    }
+  const H = new Float64Array(m * m);
+  for (let a = 0; a < m; a++)
+    for (let b = 0; b < m; b++) {
+      let s = 0;
+      for (let i = 0; i < m; i++) s += J[i * m + a] * IJ[i * m + b];
+      H[a * m + b] = s;
+    }
+  return invertPositiveDefinite(H, m, out);
+}
+
+/**
+ * out = A⁻¹ for a symmetric positive-definite A by its Cholesky factor; false when a squared pivot
+ * falls below 1e-3 of its diagonal element (near a common factor the Hessian is singular) or
+ * anything is not finite.
+ */
+function invertPositiveDefinite(A: Float64Array, m: number, out: Float64Array): boolean {
+  const L = new Float64Array(m * m);
+  for (let i = 0; i < m; i++) {
+    for (let j = 0; j <= i; j++) {
+      let s = A[i * m + j];
+      for (let r = 0; r < j; r++) s -= L[i * m + r] * L[j * m + r];
+      if (i === j) {
+        if (!(s > 1e-3 * A[i * m + i]) || !Number.isFinite(s)) return false;
+        L[i * m + i] = Math.sqrt(s);
+      } else L[i * m + j] = s / L[j * m + j];
+    }
+  }
+  // Columns of A⁻¹ from L Lᵀ x = e_c.
+  const col = new Float64Array(m);
+  for (let c = 0; c < m; c++) {
+    for (let i = 0; i < m; i++) {
+      let s = i === c ? 1 : 0;
+      for (let r = 0; r < i; r++) s -= L[i * m + r] * col[r];
+      col[i] = s / L[i * m + i];
+    }
+    for (let i = m - 1; i >= 0; i--) {
+      let s = col[i];
+      for (let r = i + 1; r < m; r++) s -= L[r * m + i] * col[r];
+      col[i] = s / L[i * m + i];
+    }
+    for (let i = 0; i < m; i++) out[i * m + c] = col[i];
+  }
+  return true;
+}
