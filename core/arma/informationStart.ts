@@ -12,6 +12,7 @@
  * The sums run to M terms; every start lies inside |π| ≤ 0.98, where the tail is below 1e-6.
  */
 
+import { choleskyFactor, inverseFromCholesky } from './leastSquares';
 import { unconstrainedJacobian, unconstrainedToCoefficients } from './partialAutocorrelations';
 import { psiWeights } from './psi';
 
@@ -41,10 +42,14 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
     return s;
   };
   const info = new Float64Array(m * m);
-  for (let i = 0; i < p; i++)
-    for (let j = 0; j < p; j++) info[i * m + j] = cross(alpha, alpha, Math.abs(i - j));
-  for (let i = 0; i < q; i++)
-    for (let j = 0; j < q; j++) info[(p + i) * m + p + j] = cross(beta, beta, Math.abs(i - j));
+  // The two diagonal blocks: autocovariances of x (offset 0, size p) and of w (offset p, size q).
+  for (const [offset, size, w] of [
+    [0, p, alpha],
+    [p, q, beta],
+  ] as const) {
+    for (let i = 0; i < size; i++)
+      for (let j = 0; j < size; j++) info[(offset + i) * m + offset + j] = cross(w, w, Math.abs(i - j));
+  }
   for (let i = 0; i < p; i++) {
     for (let j = 0; j < q; j++) {
       // −E[x_{t−1−i} w_{t−1−j}] / σ²: Σ α_s β_{s+i−j} for i ≥ j, Σ β_s α_{s+j−i} otherwise.
@@ -80,40 +85,11 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
       for (let i = 0; i < m; i++) s += J[i * m + a] * IJ[i * m + b];
       H[a * m + b] = s;
     }
-  return invertPositiveDefinite(H, m, out);
-}
-
-/**
- * out = A⁻¹ for a symmetric positive-definite A by its Cholesky factor; false when a squared pivot
- * falls below 1e-3 of its diagonal element (near a common factor the Hessian is singular) or
- * anything is not finite.
- */
-function invertPositiveDefinite(A: Float64Array, m: number, out: Float64Array): boolean {
+  // Near a common AR/MA factor the Hessian is singular: decline when a squared pivot falls below
+  // 1e-3 of its diagonal element.
   const L = new Float64Array(m * m);
-  for (let i = 0; i < m; i++) {
-    for (let j = 0; j <= i; j++) {
-      let s = A[i * m + j];
-      for (let r = 0; r < j; r++) s -= L[i * m + r] * L[j * m + r];
-      if (i === j) {
-        if (!(s > 1e-3 * A[i * m + i]) || !Number.isFinite(s)) return false;
-        L[i * m + i] = Math.sqrt(s);
-      } else L[i * m + j] = s / L[j * m + j];
-    }
-  }
-  // Columns of A⁻¹ from L Lᵀ x = e_c.
-  const col = new Float64Array(m);
-  for (let c = 0; c < m; c++) {
-    for (let i = 0; i < m; i++) {
-      let s = i === c ? 1 : 0;
-      for (let r = 0; r < i; r++) s -= L[i * m + r] * col[r];
-      col[i] = s / L[i * m + i];
-    }
-    for (let i = m - 1; i >= 0; i--) {
-      let s = col[i];
-      for (let r = i + 1; r < m; r++) s -= L[r * m + i] * col[r];
-      col[i] = s / L[i * m + i];
-    }
-    for (let i = 0; i < m; i++) out[i * m + c] = col[i];
-  }
+  if (!choleskyFactor(H, m, L, 1e-3, 0)) return false;
+  inverseFromCholesky(L, m, out);
+  for (let i = 0; i < m * m; i++) if (!Number.isFinite(out[i])) return false;
   return true;
 }

@@ -18,6 +18,7 @@
  * to the steady-state recursion until the next missing week.
  */
 
+import { choleskyFactor, inverseFromCholesky } from './leastSquares';
 import {
   createGradientWorkspace,
   type FilterTrace,
@@ -660,22 +661,7 @@ export class ArmaLikelihood {
 
   /** Cholesky of sxx (lower triangle filled) into chol; false if not positive definite. */
   private factor(): boolean {
-    const k = this.k;
-    const A = this.sxx;
-    const L = this.chol;
-    for (let i = 0; i < k; i++) {
-      for (let j = 0; j <= i; j++) {
-        let s = A[i * k + j];
-        for (let m = 0; m < j; m++) s -= L[i * k + m] * L[j * k + m];
-        if (i === j) {
-          if (!(s > 1e-300 * Math.max(1, A[i * k + i]))) return false;
-          L[i * k + i] = Math.sqrt(s);
-        } else {
-          L[i * k + j] = s / L[j * k + j];
-        }
-      }
-    }
-    return true;
+    return choleskyFactor(this.sxx, this.k, this.chol, 1e-300, 1);
   }
 
   /**
@@ -756,22 +742,8 @@ export class ArmaLikelihood {
   glsInverse(): Float64Array | null {
     const k = this.k;
     if (k === 0 || !this.factor()) return k === 0 ? new Float64Array(0) : null;
-    const L = this.chol;
     const inv = new Float64Array(k * k);
-    const col = new Float64Array(k);
-    for (let e = 0; e < k; e++) {
-      for (let i = 0; i < k; i++) {
-        let s = i === e ? 1 : 0;
-        for (let m = 0; m < i; m++) s -= L[i * k + m] * col[m];
-        col[i] = s / L[i * k + i];
-      }
-      for (let i = k - 1; i >= 0; i--) {
-        let s = col[i];
-        for (let m = i + 1; m < k; m++) s -= L[m * k + i] * col[m];
-        col[i] = s / L[i * k + i];
-      }
-      for (let i = 0; i < k; i++) inv[i * k + e] = col[i];
-    }
+    inverseFromCholesky(this.chol, k, inv);
     return inv;
   }
 
