@@ -49,8 +49,11 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
     [0, p, alpha],
     [p, q, beta],
   ] as const) {
+    // Toeplitz: one sum per lag.
+    const byLag = new Float64Array(size);
+    for (let lag = 0; lag < size; lag++) byLag[lag] = cross(w, w, lag);
     for (let i = 0; i < size; i++)
-      for (let j = 0; j < size; j++) info[(offset + i) * m + offset + j] = cross(w, w, Math.abs(i - j));
+      for (let j = 0; j < size; j++) info[(offset + i) * m + offset + j] = byLag[Math.abs(i - j)];
   }
   for (let i = 0; i < p; i++) {
     for (let j = 0; j < q; j++) {
