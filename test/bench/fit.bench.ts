@@ -17,6 +17,7 @@ import { join } from 'node:path';
 import { createRng, fitArma, simulateArma } from '../../core/arma';
 import { ArmaLikelihood } from '../../core/arma/kalmanLikelihood';
 import { unconstrainedToCoefficients } from '../../core/arma/partialAutocorrelations';
+import { cliCommand } from './cliCommand';
 
 const root = join(import.meta.dirname, '..', '..');
 const FILES = Number(process.env.FIT_BENCH_FILES ?? 1000);
@@ -110,16 +111,7 @@ const haveTime = spawnSync(timeBin, ['-f', '%U', 'true'], { encoding: 'utf8' }).
 
 /** One CLI call: wall seconds, and CPU seconds of the process where /usr/bin/time is installed. */
 function timeCli(files: string[], order: string): { seconds: number; cpu: number; stdout: string } {
-  const cli = [
-    process.execPath,
-    '--import',
-    'tsx',
-    join(root, 'app/cli/main.ts'),
-    'fit',
-    ...files,
-    '--order',
-    order,
-  ];
+  const cli = [...cliCommand(), 'fit', ...files, '--order', order];
   const cpuFile = join(tmpdir(), `provision-fit-bench-cpu-${process.pid}.txt`);
   const [cmd, ...args] = haveTime ? [timeBin, '-f', '%U %S', '-o', cpuFile, ...cli] : cli;
   const t0 = process.hrtime.bigint();

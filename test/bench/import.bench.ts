@@ -10,6 +10,7 @@ import { once } from 'node:events';
 import { createWriteStream, existsSync, mkdirSync, rmSync } from 'node:fs';
 import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
+import { cliCommand } from './cliCommand';
 
 const SKUS = Number(process.env.BENCH_SKUS ?? 5000);
 const WEEKS = Number(process.env.BENCH_WEEKS ?? 200);
@@ -52,15 +53,11 @@ function run(args: string[]): {
   status: number | null;
   last: string;
 } {
-  const r = spawnSync(
-    '/usr/bin/time',
-    ['-v', process.execPath, '--import', 'tsx', join(root, 'app/cli/main.ts'), ...args],
-    {
-      cwd: root,
-      encoding: 'utf8',
-      maxBuffer: 1 << 26,
-    },
-  );
+  const r = spawnSync('/usr/bin/time', ['-v', ...cliCommand(), ...args], {
+    cwd: root,
+    encoding: 'utf8',
+    maxBuffer: 1 << 26,
+  });
   const wallText = /Elapsed \(wall clock\) time.*: (.*)/.exec(r.stderr)?.[1] ?? '0:0';
   const parts = wallText.split(':').map(Number);
   const wall = parts.reduce((a, b) => a * 60 + b, 0);

@@ -22,6 +22,7 @@ import { chooseModel } from '../../core/select/chooseModel';
 import { forecastChoice } from '../../core/select/forecastChoice';
 import { calibration, robustness, seasonality } from '../unit/select/acceptance';
 import { randomArmaModel, weeklySeries, weeksFrom } from '../unit/select/seriesGenerators';
+import { cliCommand } from './cliCommand';
 
 const root = join(import.meta.dirname, '..', '..');
 const parts = (process.env.SELECT_PARTS ?? 'reference,calibration,seasonal,robustness,speed').split(',');
@@ -132,10 +133,10 @@ if (parts.includes('speed')) {
   if (existsSync(cli)) {
     // Wall time, and the child's CPU time (user + system, from bash's `time`), which a machine
     // shared with other jobs inflates far less than wall time.
-    const script = `TIMEFORMAT='%U %S'; time ("$0" --import tsx "${join(root, 'app/cli/main.ts')}" fit "$@" > /dev/null)`;
+    const script = `TIMEFORMAT='%U %S'; time ("$@" > /dev/null)`;
     const run = (args: string[]): { wall: number; cpu: number } => {
       const t = performance.now();
-      const r = spawnSync('bash', ['-c', script, process.execPath, ...args], {
+      const r = spawnSync('bash', ['-c', script, 'bash', ...cliCommand(), 'fit', ...args], {
         cwd: root,
         encoding: 'utf8',
         maxBuffer: 1 << 30,
