@@ -1,3 +1,4 @@
+import gammainc from '@stdlib/math-base-special-gammainc';
 import { describe, expect, it } from 'vitest';
 import { createRng } from '../../../core/arma/random';
 import { chiSquareUpperTail } from '../../../core/diagnose/chiSquare';
@@ -25,6 +26,33 @@ describe('chi-square upper tail', () => {
     const p = chiSquareUpperTail(400, 10);
     expect(p).toBeGreaterThan(0);
     expect(p).toBeLessThan(1e-70);
+    // Q(1/2, 600) ≈ 1.5e-262 and Q(24, 750) ≈ 1e-294: still doubles, not 0.
+    expect(chiSquareUpperTail(1200, 1)).toBeGreaterThan(0);
+    expect(chiSquareUpperTail(1500, 48)).toBeGreaterThan(0);
+  });
+  it("agrees with the library's regularised incomplete gamma Q(k/2, x/2) for whole k", () => {
+    // The closed forms (even and odd k) against @stdlib's general algorithm, over k = 1…200 and
+    // x from 1e-3 to 1.5e3, wherever the tail is a normal double.
+    let worst = 0;
+    let at = '';
+    let compared = 0;
+    for (let k = 1; k <= 200; k++) {
+      for (let e = -3; e <= 3.18; e += 0.02) {
+        const x = 10 ** e;
+        const ref = gammainc(x / 2, k / 2, true, true);
+        if (!(ref > 1e-290)) continue;
+        compared++;
+        const rel = Math.abs(chiSquareUpperTail(x, k) - ref) / ref;
+        if (rel > worst) {
+          worst = rel;
+          at = `k = ${k}, x = ${x}`;
+        }
+      }
+    }
+    expect(compared).toBeGreaterThan(50_000);
+    expect(worst, at).toBeLessThan(1e-11);
+    // Non-whole k still goes to the library.
+    expect(chiSquareUpperTail(3, 2.5)).toBe(gammainc(1.5, 1.25, true, true));
   });
 });
 
