@@ -58,76 +58,120 @@ export function diagnoseChoice(
     forecast?: ChoiceForecast;
   } = {},
 ): { diagnostics: Diagnostics; flags: Flag[] } {
+  // One function per check, each pushing its flags; the order of the calls is the order of the flags.
   const flags: Flag[] = [];
   const fit = choice.fit;
-  const n = choice.residuals.length;
   // Actual demand is fitted + residual wherever both exist.
   const y = options.y ?? choice.fitted.map((f, i) => f + choice.residuals[i]);
-
-  // Standardised one-step errors on the scale the model measures them.
-  const z = new Float64Array(n).fill(Number.NaN);
-  let sigma = Number.NaN;
-  if (choice.kind === 'arma' && fit) {
-    const sz = fit.standardizedResiduals;
-    const off = n - sz.length;
-    for (let i = 0; i < sz.length; i++) if (i + off >= 0) z[i + off] = sz[i];
-  } else {
-    sigma =
-      choice.kind === 'intermittent' && choice.intermittent
-        ? Math.sqrt(choice.intermittent.errorVariance)
-        : (choice.fallbackLevel?.sd ?? (fit ? Math.sqrt(fit.sigma2) : Number.NaN));
-    if (sigma > 0) for (let i = 0; i < n; i++) z[i] = choice.residuals[i] / sigma;
-  }
-
-  const pq = choice.order.p + choice.order.q;
-  let lb: LjungBoxResult | null = null;
-  let jb: JarqueBeraResult | null = null;
-  if (choice.kind === 'arma' && fit) {
-    const innov = fit.residuals;
-    let m = 0;
-    for (let i = 0; i < innov.length; i++) if (Number.isFinite(innov[i])) m++;
-    if (m >= 8) {
-      lb = ljungBox(innov, ljungBoxLags(m, choice.seasonalHarmonics > 0 ? 52 : 0), pq);
-      jb = jarqueBera(innov);
-      if (lb.pValue < 0.01)
-        flags.push(makeFlag('residual-autocorrelation', { q: lb.statistic, lags: lb.lags, p: lb.pValue }));
-      if (jb.pValue < 0.001)
-        flags.push(makeFlag('non-normal-residuals', { jb: jb.statistic, p: jb.pValue, skew: jb.skewness }));
-    }
-  }
-
-  const arRoots = fit && choice.kind === 'arma' ? polynomialRootModuli(fit.ar) : [];
-  const maRoots = fit && choice.kind === 'arma' ? polynomialRootModuli(fit.ma) : [];
-  const minAr = arRoots.length ? arRoots[0] : null;
-  const minMa = maRoots.length ? maRoots[0] : null;
-  if (minAr !== null && minAr < ROOT_WARNING) flags.push(makeFlag('near-unit-root', { modulus: minAr }));
-  if (minMa !== null && minMa < ROOT_WARNING) flags.push(makeFlag('near-noninvertible', { modulus: minMa }));
-
-  const outliers: { week: string; z: number }[] = [];
-  if (choice.kind !== 'intermittent') {
-    for (let i = 0; i < n; i++) {
-      if (Number.isFinite(z[i]) && Math.abs(z[i]) > OUTLIER_Z)
-        outliers.push({ week: weekStart[i] ?? `#${i}`, z: z[i] });
-    }
-    if (outliers.length > 0) {
-      const shown = outliers.slice(0, 5).map((o) => o.week);
-      const more = outliers.length > 5 ? ` and ${outliers.length - 5} more` : '';
-      flags.push(makeFlag('outlier-weeks', { count: outliers.length, weeks: shown.join(', ') + more }));
-    }
-  }
-
+  const z = standardizedErrors(choice);
+  const tests = residualTests(choice, flags);
+  const roots = rootChecks(choice, flags);
+  const outliers = choice.kind !== 'intermittent' ? outlierWeeks(z, weekStart, flags) : [];
   let shift: LevelShiftResult | null = null;
   if (choice.kind === 'arma') {
     shift = levelShift(y, choice.fitted, z, 12);
     if (shift.detected)
       flags.push(makeFlag('level-shift', { weeks: shift.weeks, gap: shift.relativeGap, z: shift.z }));
   }
-
   const converged = fit && choice.kind === 'arma' ? fit.converged : null;
   if (converged === false) flags.push(makeFlag('not-converged', { order: orderText(choice) }));
   if (choice.historyWeeks < SHORT_HISTORY_WEEKS)
     flags.push(makeFlag('short-history', { weeks: choice.historyWeeks }));
+  if (choice.kind !== 'arma') kindFlags(choice, flags);
+  if (choice.kind === 'arma' && choice.selection.reason.includes('no sound candidate')) {
+    flags.push(makeFlag('unsound-model', { order: orderText(choice) }));
+  }
+  if (choice.seasonalHarmonics > 0) flags.push(makeFlag('seasonal-terms', { k: choice.seasonalHarmonics }));
+  const negative = negativeForecast(choice, options.horizon ?? 26, options.forecast, flags);
+  const recent = recentChecks(choice, y, z, flags);
 
+  return {
+    diagnostics: {
+      ljungBox: tests.lb,
+      jarqueBera: tests.jb,
+      roots,
+      outliers,
+      levelShift: shift,
+      converged,
+      historyWeeks: choice.historyWeeks,
+      observedWeeks: choice.observedWeeks,
+      negativeForecast: negative,
+      recent,
+      demand: { demandClass: choice.demandClass, adi: choice.demand.adi, cv2: choice.demand.cv2 },
+    },
+    flags,
+  };
+}
+
+/** Standardised one-step errors on the scale the model measures them (NaN where there is none). */
+function standardizedErrors(choice: ModelChoice): Float64Array {
+  const fit = choice.fit;
+  const n = choice.residuals.length;
+  const z = new Float64Array(n).fill(Number.NaN);
+  if (choice.kind === 'arma' && fit) {
+    const sz = fit.standardizedResiduals;
+    const off = n - sz.length;
+    for (let i = 0; i < sz.length; i++) if (i + off >= 0) z[i + off] = sz[i];
+    return z;
+  }
+  const sigma =
+    choice.kind === 'intermittent' && choice.intermittent
+      ? Math.sqrt(choice.intermittent.errorVariance)
+      : (choice.fallbackLevel?.sd ?? (fit ? Math.sqrt(fit.sigma2) : Number.NaN));
+  if (sigma > 0) for (let i = 0; i < n; i++) z[i] = choice.residuals[i] / sigma;
+  return z;
+}
+
+/** Ljung–Box and Jarque–Bera on an ARMA model's innovations (at least 8 of them). */
+function residualTests(
+  choice: ModelChoice,
+  flags: Flag[],
+): { lb: LjungBoxResult | null; jb: JarqueBeraResult | null } {
+  const fit = choice.fit;
+  if (choice.kind !== 'arma' || !fit) return { lb: null, jb: null };
+  const innov = fit.residuals;
+  let m = 0;
+  for (let i = 0; i < innov.length; i++) if (Number.isFinite(innov[i])) m++;
+  if (m < 8) return { lb: null, jb: null };
+  const pq = choice.order.p + choice.order.q;
+  const lb = ljungBox(innov, ljungBoxLags(m, choice.seasonalHarmonics > 0 ? 52 : 0), pq);
+  const jb = jarqueBera(innov);
+  if (lb.pValue < 0.01)
+    flags.push(makeFlag('residual-autocorrelation', { q: lb.statistic, lags: lb.lags, p: lb.pValue }));
+  if (jb.pValue < 0.001)
+    flags.push(makeFlag('non-normal-residuals', { jb: jb.statistic, p: jb.pValue, skew: jb.skewness }));
+  return { lb, jb };
+}
+
+function rootChecks(choice: ModelChoice, flags: Flag[]): Diagnostics['roots'] {
+  const fit = choice.fit;
+  const arRoots = fit && choice.kind === 'arma' ? polynomialRootModuli(fit.ar) : [];
+  const maRoots = fit && choice.kind === 'arma' ? polynomialRootModuli(fit.ma) : [];
+  const minAr = arRoots.length ? arRoots[0] : null;
+  const minMa = maRoots.length ? maRoots[0] : null;
+  if (minAr !== null && minAr < ROOT_WARNING) flags.push(makeFlag('near-unit-root', { modulus: minAr }));
+  if (minMa !== null && minMa < ROOT_WARNING) flags.push(makeFlag('near-noninvertible', { modulus: minMa }));
+  return { ar: arRoots, ma: maRoots, minAr, minMa };
+}
+
+/** Weeks whose standardised error exceeds OUTLIER_Z, by date. */
+function outlierWeeks(z: Float64Array, weekStart: string[], flags: Flag[]): { week: string; z: number }[] {
+  const outliers: { week: string; z: number }[] = [];
+  for (let i = 0; i < z.length; i++) {
+    if (Number.isFinite(z[i]) && Math.abs(z[i]) > OUTLIER_Z)
+      outliers.push({ week: weekStart[i] ?? `#${i}`, z: z[i] });
+  }
+  if (outliers.length > 0) {
+    const shown = outliers.slice(0, 5).map((o) => o.week);
+    const more = outliers.length > 5 ? ` and ${outliers.length - 5} more` : '';
+    flags.push(makeFlag('outlier-weeks', { count: outliers.length, weeks: shown.join(', ') + more }));
+  }
+  return outliers;
+}
+
+/** Why an item has no ARMA model: a fallback's reason, or sparse demand. */
+function kindFlags(choice: ModelChoice, flags: Flag[]): void {
+  const fit = choice.fit;
   if (choice.kind === 'fallback') {
     const basis = choice.fallbackLevel?.basis ?? (fit?.fallback === 'last-value' ? 'last value' : 'mean');
     const engineFlags = fit?.flags ?? [];
@@ -149,66 +193,53 @@ export function diagnoseChoice(
       }),
     );
   }
-  if (choice.kind === 'arma' && choice.selection.reason.includes('no sound candidate')) {
-    flags.push(makeFlag('unsound-model', { order: orderText(choice) }));
-  }
-  if (choice.seasonalHarmonics > 0) flags.push(makeFlag('seasonal-terms', { k: choice.seasonalHarmonics }));
+}
 
-  const horizon = options.horizon ?? 26;
+/** The lowest forecast mean below zero within the horizon, if any. */
+function negativeForecast(
+  choice: ModelChoice,
+  horizon: number,
+  given: ChoiceForecast | undefined,
+  flags: Flag[],
+): Diagnostics['negativeForecast'] {
+  if (!(horizon > 0)) return null;
   let negative: Diagnostics['negativeForecast'] = null;
-  if (horizon > 0) {
-    const given = options.forecast;
-    const f = given && given.mean.length >= horizon ? given : forecastChoice(choice, horizon);
-    for (let h = 0; h < horizon; h++) {
-      if (f.mean[h] < 0 && (!negative || f.mean[h] < negative.min))
-        negative = { step: h + 1, min: f.mean[h] };
-    }
-    if (negative) flags.push(makeFlag('negative-forecast', negative));
+  const f = given && given.mean.length >= horizon ? given : forecastChoice(choice, horizon);
+  for (let h = 0; h < horizon; h++) {
+    if (f.mean[h] < 0 && (!negative || f.mean[h] < negative.min)) negative = { step: h + 1, min: f.mean[h] };
   }
+  if (negative) flags.push(makeFlag('negative-forecast', negative));
+  return negative;
+}
 
-  // The cheap checks from the last 26 one-step innovations (no refit).
-  let recent: Diagnostics['recent'] = null;
-  {
-    let m = 0;
-    let z2 = 0;
-    let modelAbs = 0;
-    let naiveAbs = 0;
-    for (let i = n - 1; i >= 1 && m < RECENT_WEEKS; i--) {
-      const e = choice.residuals[i];
-      const naive = y[i] - y[i - 1];
-      if (!Number.isFinite(z[i]) || !Number.isFinite(e) || !Number.isFinite(naive)) continue;
-      m++;
-      z2 += z[i] * z[i];
-      modelAbs += Math.abs(e);
-      naiveAbs += Math.abs(naive);
-    }
-    if (m >= 8) {
-      const pValue = chiSquareUpperTail(z2, m);
-      const errorRatio = Math.sqrt(z2 / m);
-      const naiveRatio = naiveAbs > 0 ? modelAbs / naiveAbs : modelAbs > 0 ? Number.POSITIVE_INFINITY : 1;
-      recent = { weeks: m, errorRatio, pValue, naiveRatio: Number.isFinite(naiveRatio) ? naiveRatio : 1e9 };
-      if (pValue < 0.01) flags.push(makeFlag('intervals-too-narrow', { weeks: m, ratio: errorRatio }));
-      if (naiveRatio > LOSES_TO_NAIVE && choice.kind !== 'intermittent')
-        flags.push(makeFlag('loses-to-naive', { weeks: m, ratio: naiveRatio }));
-    }
+/** The cheap checks from the last 26 one-step innovations (no refit). */
+function recentChecks(
+  choice: ModelChoice,
+  y: ArrayLike<number>,
+  z: Float64Array,
+  flags: Flag[],
+): Diagnostics['recent'] {
+  let m = 0;
+  let z2 = 0;
+  let modelAbs = 0;
+  let naiveAbs = 0;
+  for (let i = choice.residuals.length - 1; i >= 1 && m < RECENT_WEEKS; i--) {
+    const e = choice.residuals[i];
+    const naive = y[i] - y[i - 1];
+    if (!Number.isFinite(z[i]) || !Number.isFinite(e) || !Number.isFinite(naive)) continue;
+    m++;
+    z2 += z[i] * z[i];
+    modelAbs += Math.abs(e);
+    naiveAbs += Math.abs(naive);
   }
-
-  return {
-    diagnostics: {
-      ljungBox: lb,
-      jarqueBera: jb,
-      roots: { ar: arRoots, ma: maRoots, minAr, minMa },
-      outliers,
-      levelShift: shift,
-      converged,
-      historyWeeks: choice.historyWeeks,
-      observedWeeks: choice.observedWeeks,
-      negativeForecast: negative,
-      recent,
-      demand: { demandClass: choice.demandClass, adi: choice.demand.adi, cv2: choice.demand.cv2 },
-    },
-    flags,
-  };
+  if (m < 8) return null;
+  const pValue = chiSquareUpperTail(z2, m);
+  const errorRatio = Math.sqrt(z2 / m);
+  const naiveRatio = naiveAbs > 0 ? modelAbs / naiveAbs : modelAbs > 0 ? Number.POSITIVE_INFINITY : 1;
+  if (pValue < 0.01) flags.push(makeFlag('intervals-too-narrow', { weeks: m, ratio: errorRatio }));
+  if (naiveRatio > LOSES_TO_NAIVE && choice.kind !== 'intermittent')
+    flags.push(makeFlag('loses-to-naive', { weeks: m, ratio: naiveRatio }));
+  return { weeks: m, errorRatio, pValue, naiveRatio: Number.isFinite(naiveRatio) ? naiveRatio : 1e9 };
 }
 
 function orderText(c: ModelChoice): string {
