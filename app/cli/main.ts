@@ -3,6 +3,8 @@
  * beside this one and is loaded only when asked for, so one command's dependencies never slow
  * another's start.
  */
+import { importBundled } from './bundledImport';
+
 const COMMANDS: Record<string, { file: string; summary: string }> = {
   fit: { file: './fit.ts', summary: 'fit models to weekly CSV series and print JSON lines' },
   import: { file: './import.ts', summary: 'import a sales, items or stock CSV into a store' },
@@ -27,7 +29,9 @@ async function main(argv: string[]): Promise<number> {
     process.stderr.write(`unknown command '${name}'\n${usage()}`);
     return 2;
   }
-  const mod = (await import(command.file)) as { default: (args: string[]) => Promise<number> };
+  const mod = (name === 'fit' ? await importBundled('app/cli/fit.ts') : await import(command.file)) as {
+    default: (args: string[]) => Promise<number>;
+  };
   return mod.default(rest);
 }
 
