@@ -49,7 +49,7 @@ const Z95 = quantile(0.975, 0, 1);
 
 export function backtestChoice(
   y: ArrayLike<number>,
-  weekStart: string[],
+  weekStart: readonly string[],
   choice: ModelChoice,
   options: BacktestOptions = {},
 ): BacktestResult {

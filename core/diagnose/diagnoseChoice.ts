@@ -50,7 +50,7 @@ export const LOSES_TO_NAIVE = 1.1;
 
 export function diagnoseChoice(
   choice: ModelChoice,
-  weekStart: string[],
+  weekStart: readonly string[],
   options: {
     horizon?: number;
     y?: ArrayLike<number>;
@@ -155,7 +155,11 @@ function rootChecks(choice: ModelChoice, flags: Flag[]): Diagnostics['roots'] {
 }
 
 /** Weeks whose standardised error exceeds OUTLIER_Z, by date. */
-function outlierWeeks(z: Float64Array, weekStart: string[], flags: Flag[]): { week: string; z: number }[] {
+function outlierWeeks(
+  z: Float64Array,
+  weekStart: readonly string[],
+  flags: Flag[],
+): { week: string; z: number }[] {
   const outliers: { week: string; z: number }[] = [];
   for (let i = 0; i < z.length; i++) {
     if (Number.isFinite(z[i]) && Math.abs(z[i]) > OUTLIER_Z)

@@ -167,11 +167,18 @@ function finiteCopy(v: unknown): unknown {
  */
 const WEEK_LABELS = new Map<number, string>();
 const MAX_WEEK_LABELS = 1 << 16;
+/** The last list made: files of one call usually cover the same weeks, and then share it. */
+let lastLabels: { first: number; labels: readonly string[] } = { first: Number.NaN, labels: [] };
 
-/** YYYY-MM-DD of day numbers first, first + 7, … (n of them), as formatIsoDate writes them. */
-export function weekStartsFrom(first: number, n: number): string[] {
-  const out = new Array<string>(Math.max(0, n));
-  for (let i = 0; i < n; i++) {
+/**
+ * YYYY-MM-DD of day numbers first, first + 7, … (n of them), as formatIsoDate writes them. The list
+ * is frozen: the same list is returned again for the same weeks.
+ */
+export function weekStartsFrom(first: number, n: number): readonly string[] {
+  const count = Math.max(0, n);
+  if (lastLabels.first === first && lastLabels.labels.length === count) return lastLabels.labels;
+  const out = new Array<string>(count);
+  for (let i = 0; i < count; i++) {
     const day = first + 7 * i;
     let label = WEEK_LABELS.get(day);
     if (label === undefined) {
@@ -181,5 +188,6 @@ export function weekStartsFrom(first: number, n: number): string[] {
     }
     out[i] = label;
   }
-  return out;
+  lastLabels = { first, labels: Object.freeze(out) };
+  return lastLabels.labels;
 }

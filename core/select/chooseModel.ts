@@ -86,7 +86,7 @@ interface Screened {
 
 export function chooseModel(
   y: ArrayLike<number>,
-  weekStart: string[],
+  weekStart: readonly string[],
   options: ChooseOptions = {},
 ): ModelChoice {
   const n = y.length;
@@ -563,7 +563,7 @@ function reasonOf(
 
 function forcedChoice(
   series: Float64Array,
-  weekStart: string[],
+  weekStart: readonly string[],
   forced: NonNullable<ChooseOptions['forced']>,
   base: BaseFields,
 ): ModelChoice {

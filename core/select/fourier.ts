@@ -17,7 +17,7 @@ export function weekTime(isoDate: string): number {
 }
 
 /** Week times for the history and, optionally, `horizon` further weeks 7 days apart. */
-export function weekTimes(weekStart: string[], horizon = 0): Float64Array {
+export function weekTimes(weekStart: readonly string[], horizon = 0): Float64Array {
   const n = weekStart.length;
   const out = new Float64Array(n + horizon);
   for (let i = 0; i < n; i++) out[i] = weekTime(weekStart[i]);
@@ -44,7 +44,7 @@ export function fourierColumns(times: ArrayLike<number>, harmonics: number): Flo
 
 /** Future columns for steps 1…horizon after the last history week. */
 export function futureFourierColumns(
-  weekStart: string[],
+  weekStart: readonly string[],
   harmonics: number,
   horizon: number,
 ): Float64Array[] {

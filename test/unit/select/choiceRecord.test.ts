@@ -24,6 +24,18 @@ describe('weekStartsFrom', () => {
     }
     expect(weekStartsFrom(0, 0)).toEqual([]);
   });
+  it('returns the same frozen list again for the same weeks, and a new one for other weeks', () => {
+    const first = dayNumber(2023, 1, 2);
+    const a = weekStartsFrom(first, 156);
+    expect(weekStartsFrom(first, 156)).toBe(a);
+    expect(Object.isFrozen(a)).toBe(true);
+    const shorter = weekStartsFrom(first, 155);
+    expect(shorter).not.toBe(a);
+    expect(shorter).toEqual(a.slice(0, 155));
+    const later = weekStartsFrom(first + 7, 156);
+    expect(later[0]).toBe(a[1]);
+    expect(later[155]).toBe(formatIsoDate(first + 7 * 156));
+  });
 });
 
 describe('finite', () => {
