@@ -126,9 +126,12 @@ function fieldsOf(text: string, start: number, end: number): string[] {
     .map((f) => f.trim());
 }
 
+/** The values while a file is read (one file at a time): grown as needed, reused by every file. */
+let scratch = new Float64Array(256);
+
 /** Collects the weekly values row by row, with the checks (and messages) of the file format. */
 class WeeklyBuilder {
-  values = new Float64Array(256);
+  values = scratch;
   count = 0;
   firstWeek = Number.NaN;
   prevWeek = Number.NaN;
@@ -176,6 +179,7 @@ class WeeklyBuilder {
       const grown = new Float64Array(2 * this.values.length);
       grown.set(this.values);
       this.values = grown;
+      scratch = grown;
     }
     this.values[this.count++] = x;
   }

@@ -43,12 +43,14 @@ interface Prepared {
   xcols: Float64Array[];
   nobs: number;
   flags: string[];
+  /** n zeros for fitArma's scaled deviations (allocated with the rest). */
+  u: Float64Array;
 }
 
 function prepare(y: ArrayLike<number>, opts: ArmaFitOptions, includeMean: boolean): Prepared {
   const n = y.length;
   const flags: string[] = [];
-  const yc = new Float64Array(n);
+  const [yc, w0, ones, u] = float64Block([n, opts.d === 0 ? n : 0, includeMean ? n : 0, n]);
   let nonFinite = false;
   for (let t = 0; t < n; t++) {
     const v = Number(y[t]);
@@ -58,9 +60,11 @@ function prepare(y: ArrayLike<number>, opts: ArmaFitOptions, includeMean: boolea
       nonFinite = true;
     } else yc[t] = v;
   }
-  const w = difference(yc, opts.d);
+  let w = w0;
+  if (opts.d === 0) w.set(yc);
+  else w = difference(yc, opts.d);
   const xcols: Float64Array[] = [];
-  if (includeMean) xcols.push(new Float64Array(n).fill(1));
+  if (includeMean) xcols.push(ones.fill(1));
   for (const [i, col] of (opts.xreg ?? []).entries()) {
     if (col.length !== n) {
       throw new RangeError(`regressor column ${i} has length ${col.length}, the series ${n}`);
@@ -78,7 +82,7 @@ function prepare(y: ArrayLike<number>, opts: ArmaFitOptions, includeMean: boolea
   if (nonFinite) flags.push('non-finite-input');
   let nobs = 0;
   for (let t = 0; t < n; t++) if (!Number.isNaN(w[t])) nobs++;
-  return { n, y: yc, w, xcols, nobs, flags };
+  return { n, y: yc, w, xcols, nobs, flags, u };
 }
 
 function lastLevels(yFilled: Float64Array, d: number): number[] {
@@ -248,7 +252,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
     }
     beta0.set(b);
   }
-  const u = new Float64Array(n);
+  const u = prep.u;
   let ss = 0;
   for (let t = 0; t < n; t++) {
     if (Number.isNaN(w[t])) {
@@ -490,8 +494,8 @@ function naturalStandardErrors(
 
 /** Inverse of a symmetric matrix by Gauss–Jordan elimination with partial pivoting. */
 function invertSymmetric(A: Float64Array, m: number): Float64Array | null {
-  const a = Float64Array.from(A);
-  const inv = new Float64Array(m * m);
+  const [a, inv] = float64Block([m * m, m * m]);
+  a.set(A);
   for (let i = 0; i < m; i++) inv[i * m + i] = 1;
   for (let c = 0; c < m; c++) {
     let piv = c;

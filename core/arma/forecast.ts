@@ -76,10 +76,7 @@ function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): 
   const c = integrationWeights(d);
   const D = r + d + 1;
   const S = r + d;
-  const m = new Float64Array(D);
-  const P = new Float64Array(D * D);
-  const G = new Float64Array(D * D);
-  const GP = new Float64Array(D * D);
+  const [m, P, G, GP] = float64Block([D, D * D, D * D, D * D]);
   // Through typed copies: the stored arrays hold small integers (fallbacks) or doubles.
   const st = Float64Array.from(state);
   const lv = Float64Array.from(levels);

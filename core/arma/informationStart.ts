@@ -17,6 +17,7 @@
 import { choleskyFactor, inverseFromCholesky } from './leastSquares';
 import { unconstrainedJacobian, unconstrainedToCoefficients } from './partialAutocorrelations';
 import { psiWeights } from './psi';
+import { float64Block } from './typedArrays';
 
 const M = 400;
 
@@ -35,8 +36,9 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
   unconstrainedToCoefficients(u, 0, p, ar, 0, work);
   unconstrainedToCoefficients(u, p, q, ma, 0, work);
   // ψ-weights of 1/φ(B) and of 1/θ(B) (θ(B) has the AR polynomial's form).
-  const alpha = psiWeights(ar, [], M + m);
-  const beta = psiWeights(ma, [], M + m);
+  const [alpha, beta] = float64Block([M + m, M + m]);
+  psiWeights(ar, [], M + m, 0, alpha);
+  psiWeights(ma, [], M + m, 0, beta);
   const cross = (a: Float64Array, b: Float64Array, lag: number): number => {
     // Σ_m a_m b_{m+lag} for lag ≥ 0.
     let s = 0;

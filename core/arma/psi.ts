@@ -5,9 +5,16 @@
  * Recursion: ψ_0 = 1, ψ_j = −θ_j + Σ_{i=1}^{min(j,p*)} φ*_i ψ_{j−i}, where φ*(B) = φ(B)(1 − B)^d
  * (Box, Jenkins & Reinsel, Time Series Analysis, ch. 5).
  */
-export function psiWeights(ar: ArrayLike<number>, ma: ArrayLike<number>, n: number, d = 0): Float64Array {
+export function psiWeights(
+  ar: ArrayLike<number>,
+  ma: ArrayLike<number>,
+  n: number,
+  d = 0,
+  /** Where to write them (at least n long); a new array by default. */
+  out: Float64Array = new Float64Array(Math.max(n, 0)),
+): Float64Array {
   const phi = integratedAr(ar, d);
-  const psi = new Float64Array(Math.max(n, 0));
+  const psi = out;
   for (let j = 0; j < n; j++) {
     let v = j === 0 ? 1 : j <= ma.length ? -ma[j - 1] : 0;
     const top = Math.min(j, phi.length);
