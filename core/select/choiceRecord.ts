@@ -10,7 +10,7 @@ import { forecastChoice } from './forecastChoice';
  * One item's record for the `fit` command's JSON line, from history to choice, forecast, diagnosis
  * and (on request) backtest. With an order given the model is exactly ARIMA(p,d,q) (a mean when
  * d = 0 unless switched off; no seasonal terms, no sparse-demand method, no search); without one the
- * choice is automatic. Plain data; non-finite numbers become null.
+ * choice is automatic. Plain data for JSON.stringify (non-finite numbers are written as null).
  */
 export interface ChoiceRecordOptions {
   order: { p: number; d: number; q: number } | null;
@@ -112,7 +112,8 @@ export function choiceRecord(
       reason: choice.selection.reason,
     },
     demandClass: choice.demandClass,
-    diagnostics: finite(diagnostics),
+    // Plain numbers, arrays and objects only: JSON.stringify writes its non-finite numbers as null.
+    diagnostics,
   };
   if (options.backtest) {
     const b = backtestChoice(values, weekStart, choice, { lead: options.backtestLead ?? 4 });
