@@ -2,7 +2,7 @@
  * A command's module loaded as one bundle: esbuild joins the entry and everything it imports from
  * this repository into one ES module (packages stay imports), written once per distinct content
  * under node_modules/.cache/provision and imported from there. It is built on every call, from the
- * sources as they are (~50 ms), so it is never stale and needs no build step.
+ * sources as they are (~55 ms), so it is never stale and needs no build step.
  * Why: `fit` runs the same code over thousands of files in one process, and the JIT optimises one
  * bundle sooner than the same code as 40 modules compiled one by one by tsx (which also names every
  * closure at run time): see DEVELOPERS.md for the figures. Where the cache cannot be written, the

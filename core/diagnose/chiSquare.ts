@@ -8,7 +8,7 @@ import normalCdf from '@stdlib/stats-base-dists-normal-cdf';
  *
  * Every caller's k is a whole number (Ljung–Box lags less the ARMA order; weeks in a window;
  * seasonal terms), and there Q has a closed form (Abramowitz & Stegun 26.4.4 and 26.4.5, quoted
- * from memory; checked against the library to 1e-12 in test/unit/diagnose/chiSquare.test.ts):
+ * from memory; checked against the library to 1e-11 in test/unit/diagnose/residualTests.test.ts):
  *   k even: Q = e^{−x/2} Σ_{j=0}^{k/2−1} (x/2)^j / j!
  *   k odd:  Q = 2Φ(−√x) + 2φ(√x) Σ_{j=1}^{(k−1)/2} x^{j−1/2} / (1·3·…·(2j−1))
  * Its sum of at most k/2 terms is done in logarithms, so a tail that is a double (≥ 1e-308) does
