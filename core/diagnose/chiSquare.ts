@@ -22,33 +22,30 @@ export function chiSquareUpperTail(x: number, k: number): number {
   if (x === Number.POSITIVE_INFINITY) return 0;
   if (!Number.isInteger(k) || k > 1000) return gammainc(x / 2, k / 2, true, true);
   const h = x / 2;
-  if (k % 2 === 0) {
-    // log of the terms t_j = h^j / j!, t_0 = 1; the sum as e^{max} · s.
-    let logTerm = 0;
-    let logMax = 0;
-    let s = 1;
-    for (let j = 1; j < k / 2; j++) {
-      logTerm += Math.log(h / j);
-      if (logTerm > logMax) {
-        s = s * Math.exp(logMax - logTerm) + 1;
-        logMax = logTerm;
-      } else s += Math.exp(logTerm - logMax);
-    }
-    return Math.exp(-h + logMax + Math.log(s));
-  }
+  // k even: t_0 = 1, t_j = t_{j−1} · h / j.
+  if (k % 2 === 0) return Math.exp(-h + logSeries(0, k / 2, (j) => h / j));
   const r = Math.sqrt(x);
   const normalTail = 2 * normalCdf(-r, 0, 1);
   if (k === 1) return normalTail;
-  // t_1 = √x, t_{j+1} = t_j · x / (2j + 1); 2φ(√x) = √(2/π) e^{−x/2}.
-  let logTerm = Math.log(r);
-  let logMax = logTerm;
+  // k odd: t_1 = √x, t_{j+1} = t_j · x / (2j + 1); 2φ(√x) = √(2/π) e^{−x/2}.
+  const logSum = logSeries(Math.log(r), (k - 1) / 2, (j) => x / (2 * j + 1));
+  return normalTail + Math.exp(-h + 0.5 * Math.log(2 / Math.PI) + logSum);
+}
+
+/**
+ * log(t_0 + … + t_{count−1}) for t_0 = e^{logFirst} and t_j = t_{j−1} · ratio(j), kept as
+ * e^{max} · s so that neither the terms nor the sum overflow.
+ */
+function logSeries(logFirst: number, count: number, ratio: (j: number) => number): number {
+  let logTerm = logFirst;
+  let logMax = logFirst;
   let s = 1;
-  for (let j = 1; j < (k - 1) / 2; j++) {
-    logTerm += Math.log(x / (2 * j + 1));
+  for (let j = 1; j < count; j++) {
+    logTerm += Math.log(ratio(j));
     if (logTerm > logMax) {
       s = s * Math.exp(logMax - logTerm) + 1;
       logMax = logTerm;
     } else s += Math.exp(logTerm - logMax);
   }
-  return normalTail + Math.exp(-h + 0.5 * Math.log(2 / Math.PI) + logMax + Math.log(s));
+  return logMax + Math.log(s);
 }
