@@ -3,9 +3,10 @@
  * cache directory, stale bundles of the same entry removed, and the plain module when the cache
  * cannot be written.
  */
-import { mkdtempSync, readdirSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { build } from 'esbuild';
 import { afterEach, describe, expect, it } from 'vitest';
 import { importBundled } from '../../app/cli/bundledImport';
 
@@ -57,5 +58,23 @@ describe('importBundled', () => {
     writeFileSync(blocker, 'not a directory');
     const mod = (await importBundled('app/cli/fit-csv.ts', join(blocker, 'cache'))) as CsvModule;
     expect(mod.parseWeek('2024-01-01')).toBe(19723);
+  });
+
+  it("leaves out import.meta in every module of fit's bundle (the bundle lives in the cache)", async () => {
+    const root = join(import.meta.dirname, '..', '..');
+    const r = await build({
+      entryPoints: [join(root, 'app/cli/fit.ts')],
+      bundle: true,
+      platform: 'node',
+      format: 'esm',
+      packages: 'external',
+      write: false,
+      metafile: true,
+      logLevel: 'silent',
+    });
+    const inputs = Object.keys(r.metafile.inputs);
+    expect(inputs.length).toBeGreaterThan(20);
+    const using = inputs.filter((f) => readFileSync(join(root, f), 'utf8').includes('import.meta'));
+    expect(using).toEqual([]);
   });
 });
