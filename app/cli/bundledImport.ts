@@ -12,27 +12,17 @@ import { createHash } from 'node:crypto';
 import { mkdirSync, readdirSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
+import type { BuildOptions } from 'esbuild';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const CACHE = join(ROOT, 'node_modules', '.cache', 'provision');
 /** Older bundles of the same entry are removed after an hour (a call still running may use one). */
 const KEEP_MS = 3600_000;
 
-/** entry: a path from the repository root, e.g. 'app/cli/fit.ts'. */
-export async function importBundled(entry: string, cacheDir = CACHE): Promise<unknown> {
-  let file: string;
-  try {
-    file = await writeBundle(entry, cacheDir);
-  } catch {
-    return import(pathToFileURL(join(ROOT, entry)).href);
-  }
-  return import(pathToFileURL(file).href);
-}
-
-async function writeBundle(entry: string, cacheDir: string): Promise<string> {
-  const { build } = await import('esbuild');
-  const result = await build({
-    entryPoints: [join(ROOT, entry)],
+/** How a command's entry is bundled (also used by the test that checks what goes into it). */
+export function bundleOptions(entry: string): BuildOptions {
+  return {
+    entryPoints: [entry],
     bundle: true,
     platform: 'node',
     format: 'esm',
@@ -42,17 +32,29 @@ async function writeBundle(entry: string, cacheDir: string): Promise<string> {
     sourcesContent: false,
     write: false,
     logLevel: 'silent',
-  });
+  };
+}
+
+/** entry: the module's absolute path. */
+export async function importBundled(entry: string, cacheDir = CACHE): Promise<unknown> {
+  let file: string;
+  try {
+    file = await writeBundle(entry, cacheDir);
+  } catch {
+    return import(pathToFileURL(entry).href);
+  }
+  return import(pathToFileURL(file).href);
+}
+
+async function writeBundle(entry: string, cacheDir: string): Promise<string> {
+  const { build } = await import('esbuild');
+  const result = await build(bundleOptions(entry));
+  if (!result.outputFiles) throw new Error('esbuild wrote no output');
   const code = result.outputFiles[0].text;
   const name = basename(entry).replace(/\.[^.]+$/, '');
   const hash = createHash('sha256').update(code).digest('hex').slice(0, 16);
   const file = join(cacheDir, `${name}-${hash}.mjs`);
-  try {
-    statSync(file);
-    return file;
-  } catch {
-    // Not written yet: below.
-  }
+  if (statSync(file, { throwIfNoEntry: false })) return file;
   mkdirSync(cacheDir, { recursive: true });
   const now = Date.now();
   for (const old of readdirSync(cacheDir)) {

@@ -3,10 +3,12 @@
  * beside this one and is loaded only when asked for, so one command's dependencies never slow
  * another's start.
  */
+import { fileURLToPath } from 'node:url';
 import { importBundled } from './bundledImport';
 
-const COMMANDS: Record<string, { file: string; summary: string }> = {
-  fit: { file: './fit.ts', summary: 'fit models to weekly CSV series and print JSON lines' },
+/** `bundled`: loaded as one esbuild bundle (bundledImport.ts), for the command that fits thousands of files. */
+const COMMANDS: Record<string, { file: string; summary: string; bundled?: true }> = {
+  fit: { file: './fit.ts', summary: 'fit models to weekly CSV series and print JSON lines', bundled: true },
   import: { file: './import.ts', summary: 'import a sales, items or stock CSV into a store' },
   demo: { file: './demo.ts', summary: 'build the demo bakery-supply store' },
   run: { file: './run.ts', summary: 'plan every active item of a store' },
@@ -29,9 +31,11 @@ async function main(argv: string[]): Promise<number> {
     process.stderr.write(`unknown command '${name}'\n${usage()}`);
     return 2;
   }
-  const mod = (name === 'fit' ? await importBundled('app/cli/fit.ts') : await import(command.file)) as {
-    default: (args: string[]) => Promise<number>;
-  };
+  const mod = (
+    command.bundled
+      ? await importBundled(fileURLToPath(new URL(command.file, import.meta.url)))
+      : await import(command.file)
+  ) as { default: (args: string[]) => Promise<number> };
   return mod.default(rest);
 }
 

@@ -8,8 +8,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { build } from 'esbuild';
 import { afterEach, describe, expect, it } from 'vitest';
-import { importBundled } from '../../app/cli/bundledImport';
+import { bundleOptions, importBundled } from '../../app/cli/bundledImport';
 
+const root = join(import.meta.dirname, '..', '..');
+const CSV_MODULE = join(root, 'app/cli/fit-csv.ts');
 const dirs: string[] = [];
 function scratch(): string {
   const d = mkdtempSync(join(tmpdir(), 'provision-bundle-'));
@@ -25,14 +27,14 @@ type CsvModule = { parseWeek: (text: string) => number | null };
 describe('importBundled', () => {
   it('imports the entry from one bundle, written once for the same sources', async () => {
     const cache = scratch();
-    const mod = (await importBundled('app/cli/fit-csv.ts', cache)) as CsvModule;
+    const mod = (await importBundled(CSV_MODULE, cache)) as CsvModule;
     // 2024-01-01 is day 19723 after 1970-01-01 (a Monday: ISO week 2024-W01).
     expect(mod.parseWeek('2024-01-01')).toBe(19723);
     expect(mod.parseWeek('2024-W01')).toBe(19723);
     const first = readdirSync(cache);
     expect(first).toHaveLength(1);
     expect(first[0]).toMatch(/^fit-csv-[0-9a-f]{16}\.mjs$/);
-    await importBundled('app/cli/fit-csv.ts', cache);
+    await importBundled(CSV_MODULE, cache);
     expect(readdirSync(cache)).toEqual(first);
   });
 
@@ -45,7 +47,7 @@ describe('importBundled', () => {
     const twoHoursAgo = (Date.now() - 2 * 3600_000) / 1000;
     utimesSync(stale, twoHoursAgo, twoHoursAgo);
     utimesSync(other, twoHoursAgo, twoHoursAgo);
-    await importBundled('app/cli/fit-csv.ts', cache);
+    await importBundled(CSV_MODULE, cache);
     const left = readdirSync(cache).sort();
     expect(left).not.toContain('fit-csv-0000000000000000.mjs');
     expect(left).toContain('fit-csv-1111111111111111.mjs');
@@ -56,22 +58,12 @@ describe('importBundled', () => {
   it('falls back to the module itself when the cache cannot be written', async () => {
     const blocker = join(scratch(), 'a-file');
     writeFileSync(blocker, 'not a directory');
-    const mod = (await importBundled('app/cli/fit-csv.ts', join(blocker, 'cache'))) as CsvModule;
+    const mod = (await importBundled(CSV_MODULE, join(blocker, 'cache'))) as CsvModule;
     expect(mod.parseWeek('2024-01-01')).toBe(19723);
   });
 
   it("leaves out import.meta in every module of fit's bundle (the bundle lives in the cache)", async () => {
-    const root = join(import.meta.dirname, '..', '..');
-    const r = await build({
-      entryPoints: [join(root, 'app/cli/fit.ts')],
-      bundle: true,
-      platform: 'node',
-      format: 'esm',
-      packages: 'external',
-      write: false,
-      metafile: true,
-      logLevel: 'silent',
-    });
+    const r = await build({ ...bundleOptions(join(root, 'app/cli/fit.ts')), metafile: true });
     const inputs = Object.keys(r.metafile.inputs);
     expect(inputs.length).toBeGreaterThan(20);
     const using = inputs.filter((f) => readFileSync(join(root, f), 'utf8').includes('import.meta'));
