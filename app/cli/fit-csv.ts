@@ -127,11 +127,10 @@ function fieldsOf(text: string, start: number, end: number): string[] {
 }
 
 /** The values while a file is read (one file at a time): grown as needed, reused by every file. */
-let scratch = new Float64Array(256);
+let values = new Float64Array(256);
 
 /** Collects the weekly values row by row, with the checks (and messages) of the file format. */
 class WeeklyBuilder {
-  values = scratch;
   count = 0;
   firstWeek = Number.NaN;
   prevWeek = Number.NaN;
@@ -175,19 +174,18 @@ class WeeklyBuilder {
   }
 
   private push(x: number): void {
-    if (this.count === this.values.length) {
-      const grown = new Float64Array(2 * this.values.length);
-      grown.set(this.values);
-      this.values = grown;
-      scratch = grown;
+    if (this.count === values.length) {
+      const grown = new Float64Array(2 * values.length);
+      grown.set(values);
+      values = grown;
     }
-    this.values[this.count++] = x;
+    values[this.count++] = x;
   }
 
   result(): WeeklySeries {
     return {
       firstWeek: Number.isNaN(this.firstWeek) ? 0 : this.firstWeek,
-      values: this.values.slice(0, this.count),
+      values: values.slice(0, this.count),
     };
   }
 }

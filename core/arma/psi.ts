@@ -11,10 +11,9 @@ export function psiWeights(
   n: number,
   d = 0,
   /** Where to write them (at least n long); a new array by default. */
-  out: Float64Array = new Float64Array(Math.max(n, 0)),
+  psi: Float64Array = new Float64Array(Math.max(n, 0)),
 ): Float64Array {
   const phi = integratedAr(ar, d);
-  const psi = out;
   for (let j = 0; j < n; j++) {
     let v = j === 0 ? 1 : j <= ma.length ? -ma[j - 1] : 0;
     const top = Math.min(j, phi.length);
