@@ -16,7 +16,7 @@ import { difference, integrationWeights } from './difference';
 import type { ArmaLikelihood } from './kalmanLikelihood';
 import { solveNormalEquations } from './leastSquares';
 import { searchOptimum } from './searchOptimum';
-import { float64Block, numberArray } from './typedArrays';
+import { closeScratch, float64Block, numberArray, openScratch, scratchBlock } from './typedArrays';
 import type { ArmaFit, ArmaFitOptions } from './types';
 
 const MAX_P = 5;
@@ -50,7 +50,8 @@ interface Prepared {
 function prepare(y: ArrayLike<number>, opts: ArmaFitOptions, includeMean: boolean): Prepared {
   const n = y.length;
   const flags: string[] = [];
-  const [yc, w0, ones, u] = float64Block([n, opts.d === 0 ? n : 0, includeMean ? n : 0, n]);
+  // Scratch: these die with the fit (the likelihood's columns among them).
+  const [yc, w0, ones, u] = scratchBlock([n, opts.d === 0 ? n : 0, includeMean ? n : 0, n]);
   let nonFinite = false;
   for (let t = 0; t < n; t++) {
     const v = Number(y[t]);
@@ -205,6 +206,17 @@ function fallbackFit(prep: Prepared, opts: ArmaFitOptions, includeMean: boolean,
 
 export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   checkOrder(opts);
+  // The fit's temporaries (the likelihood's record, the starts' regressions, the Hessian) come from
+  // scratch space and are freed here; what the fit returns is allocated as usual.
+  const mark = openScratch();
+  try {
+    return fitScratched(y, opts);
+  } finally {
+    closeScratch(mark);
+  }
+}
+
+function fitScratched(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   const { p, d, q } = opts;
   const includeMean = opts.includeMean ?? d === 0;
   const prep = prepare(y, opts, includeMean);
@@ -417,7 +429,7 @@ function naturalStandardErrors(
     if (grad && Number.isFinite(v)) lik.gradientBeta(beta, grad);
     return v;
   };
-  const H = new Float64Array(m * m);
+  const [H] = scratchBlock([m * m]);
   const f0 = f();
   if (!Number.isFinite(f0)) return { values: nan, ok: false };
   // Every stencil pass switches to the steady state where the base pass did (a smooth function).
@@ -494,7 +506,7 @@ function naturalStandardErrors(
 
 /** Inverse of a symmetric matrix by Gauss–Jordan elimination with partial pivoting. */
 function invertSymmetric(A: Float64Array, m: number): Float64Array | null {
-  const [a, inv] = float64Block([m * m, m * m]);
+  const [a, inv] = scratchBlock([m * m, m * m]);
   a.set(A);
   for (let i = 0; i < m; i++) inv[i * m + i] = 1;
   for (let c = 0; c < m; c++) {

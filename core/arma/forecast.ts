@@ -9,7 +9,7 @@
  */
 import quantile from '@stdlib/stats-base-dists-normal-quantile';
 import { integrationWeights } from './difference';
-import { float64Block } from './typedArrays';
+import { closeScratch, float64Block, openScratch, scratchBlock } from './typedArrays';
 import type { ArmaFit } from './types';
 
 interface Propagation {
@@ -20,7 +20,7 @@ interface Propagation {
 }
 
 function futureDeterministic(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): Float64Array {
-  const det = new Float64Array(horizon);
+  const [det] = scratchBlock([horizon]);
   const mu = fit.mean ?? 0;
   det.fill(mu);
   const d = fit.order.d;
@@ -43,7 +43,17 @@ function futureDeterministic(fit: ArmaFit, horizon: number, futureXreg?: Float64
   return det;
 }
 
+/** The forecast rows are allocated as usual; the state, the transition and the like are scratch. */
 function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): Propagation {
+  const mark = openScratch();
+  try {
+    return propagateScratched(fit, horizon, futureXreg);
+  } finally {
+    closeScratch(mark);
+  }
+}
+
+function propagateScratched(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): Propagation {
   const H = Math.max(0, Math.floor(horizon));
   let ar = fit.ar;
   let ma = fit.ma;
@@ -60,11 +70,12 @@ function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): 
     if (fit.fallback === 'mean') {
       d = 0;
       levels = [];
-      det = new Float64Array(H).fill(fit.forecastState.level);
+      [det] = scratchBlock([H]);
+      det.fill(fit.forecastState.level);
     } else {
       d = 1;
       levels = [fit.forecastState.level];
-      det = new Float64Array(H);
+      [det] = scratchBlock([H]);
     }
   } else det = futureDeterministic(fit, H, futureXreg);
   const r = Math.max(ar.length, ma.length + 1);
@@ -76,7 +87,7 @@ function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): 
   const c = integrationWeights(d);
   const D = r + d + 1;
   const S = r + d;
-  const [m, P, G, GP] = float64Block([D, D * D, D * D, D * D]);
+  const [m, P, G, GP, next] = scratchBlock([D, D * D, D * D, D * D, D]);
   // Through typed copies: the stored arrays hold small integers (fallbacks) or doubles.
   const st = Float64Array.from(state);
   const lv = Float64Array.from(levels);
@@ -102,7 +113,6 @@ function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): 
   const [mean, se, sumMean, sumVariance] = float64Block([H, H, H, H]);
   const out: Propagation = { mean, se, sumMean, sumVariance };
   const s2 = Math.max(0, fit.sigma2);
-  const next = new Float64Array(D);
   for (let h = 0; h < H; h++) {
     // Forecast of y_{n+h}: Z = (1, 0…, c_1…c_d, 0).
     let yMean = m[0] + det[h];

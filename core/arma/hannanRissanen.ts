@@ -8,11 +8,11 @@
 
 import { solveNormalEquations } from './leastSquares';
 import { sampleAutocovariance } from './sampleAutocovariance';
-import { float64Block, numberArray } from './typedArrays';
+import { numberArray, scratchBlock } from './typedArrays';
 
 /** Yule–Walker AR(m) coefficients by the Durbin–Levinson recursion (Durbin 1960). */
 export function yuleWalker(gamma: Float64Array, m: number): Float64Array {
-  const [phi, prev] = float64Block([m, m]);
+  const [phi, prev] = scratchBlock([m, m]);
   let v = gamma[0];
   for (let k = 0; k < m; k++) {
     if (!(v > 0)) break;
@@ -50,7 +50,7 @@ export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage
   const n = u.length;
   const m = longArOrder(n, p, q);
   if (m >= n - 1) return null;
-  const [x, e] = float64Block([n, n]);
+  const [x, e] = scratchBlock([n, n]);
   for (let t = 0; t < n; t++) x[t] = Number.isNaN(u[t]) ? 0 : u[t];
   const gamma = sampleAutocovariance(x, Math.min(n - 1, m), false);
   if (!(gamma[0] > 0)) return null;

@@ -17,7 +17,7 @@
 import { choleskyFactor, inverseFromCholesky } from './leastSquares';
 import { unconstrainedJacobian, unconstrainedToCoefficients } from './partialAutocorrelations';
 import { psiWeights } from './psi';
-import { float64Block } from './typedArrays';
+import { scratchBlock } from './typedArrays';
 
 const M = 400;
 
@@ -36,7 +36,7 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
   unconstrainedToCoefficients(u, 0, p, ar, 0, work);
   unconstrainedToCoefficients(u, p, q, ma, 0, work);
   // ψ-weights of 1/φ(B) and of 1/θ(B) (θ(B) has the AR polynomial's form).
-  const [alpha, beta] = float64Block([M + m, M + m]);
+  const [alpha, beta] = scratchBlock([M + m, M + m]);
   psiWeights(ar, [], M + m, 0, alpha);
   psiWeights(ma, [], M + m, 0, beta);
   const cross = (a: Float64Array, b: Float64Array, lag: number): number => {

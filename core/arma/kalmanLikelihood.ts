@@ -30,7 +30,7 @@ import {
   type LyapunovWorkspace,
   stationaryCovariance,
 } from './stationaryCovariance';
-import { float64Block, numberArray } from './typedArrays';
+import { float64Block, numberArray, scratchBlock } from './typedArrays';
 
 const STEADY_TOL = 1e-8;
 
@@ -108,7 +108,8 @@ export class ArmaLikelihood {
     const n = this.n;
     let missing = 0;
     for (let t = 0; t < n; t++) if (Number.isNaN(w[t])) missing = 8 * n;
-    const [F, k1, k2, vy, vx, missingRecord, end] = float64Block([n, n, n, n, n, missing, 12]);
+    // Scratch inside a fit's scope (fitArma), where the likelihood dies with the fit.
+    const [F, k1, k2, vy, vx, missingRecord, end] = scratchBlock([n, n, n, n, n, missing, 12]);
     this.trace = { F, k1, k2, vy, vx, missing: missingRecord, end };
   }
 
@@ -778,7 +779,8 @@ export class ArmaLikelihood {
     const w = this.cols[0];
     const x = this.k > 0 ? this.cols[1] : w;
     const b = this.k > 0 ? beta[0] : 0;
-    const [innovations, variances, predictions] = float64Block([n, n, n]);
+    // Scratch inside a fit's scope: fitArma reads these into its own outputs.
+    const [innovations, variances, predictions] = scratchBlock([n, n, n]);
     innovations.fill(Number.NaN);
     variances.fill(Number.NaN);
     for (let t = 0; t < n; t++) {
