@@ -16,7 +16,7 @@ import { difference, integrationWeights } from './difference';
 import type { ArmaLikelihood } from './kalmanLikelihood';
 import { solveNormalEquations } from './leastSquares';
 import { searchOptimum } from './searchOptimum';
-import { closeScratch, float64Block, numberArray, openScratch, scratchBlock } from './typedArrays';
+import { float64Block, numberArray, scratchBlock, withScratch } from './typedArrays';
 import type { ArmaFit, ArmaFitOptions } from './types';
 
 const MAX_P = 5;
@@ -208,12 +208,7 @@ export function fitArma(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   checkOrder(opts);
   // The fit's temporaries (the likelihood's record, the starts' regressions, the Hessian) come from
   // scratch space and are freed here; what the fit returns is allocated as usual.
-  const mark = openScratch();
-  try {
-    return fitScratched(y, opts);
-  } finally {
-    closeScratch(mark);
-  }
+  return withScratch(() => fitScratched(y, opts));
 }
 
 function fitScratched(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {

@@ -9,7 +9,7 @@
  */
 import quantile from '@stdlib/stats-base-dists-normal-quantile';
 import { integrationWeights } from './difference';
-import { closeScratch, float64Block, openScratch, scratchBlock } from './typedArrays';
+import { float64Block, scratchBlock, withScratch } from './typedArrays';
 import type { ArmaFit } from './types';
 
 interface Propagation {
@@ -45,12 +45,7 @@ function futureDeterministic(fit: ArmaFit, horizon: number, futureXreg?: Float64
 
 /** The forecast rows are allocated as usual; the state, the transition and the like are scratch. */
 function propagate(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): Propagation {
-  const mark = openScratch();
-  try {
-    return propagateScratched(fit, horizon, futureXreg);
-  } finally {
-    closeScratch(mark);
-  }
+  return withScratch(() => propagateScratched(fit, horizon, futureXreg));
 }
 
 function propagateScratched(fit: ArmaFit, horizon: number, futureXreg?: Float64Array[]): Propagation {

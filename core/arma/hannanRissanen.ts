@@ -52,7 +52,8 @@ export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage
   if (m >= n - 1) return null;
   const [x, e] = scratchBlock([n, n]);
   for (let t = 0; t < n; t++) x[t] = Number.isNaN(u[t]) ? 0 : u[t];
-  const gamma = sampleAutocovariance(x, Math.min(n - 1, m), false);
+  const lags = Math.min(n - 1, m);
+  const gamma = sampleAutocovariance(x, lags, false, scratchBlock([lags + 1])[0]);
   if (!(gamma[0] > 0)) return null;
   const longAr = yuleWalker(gamma, m);
   for (let t = m; t < n; t++) {
@@ -78,7 +79,8 @@ export function hannanRissanen(
   if (q === 0) {
     // Pure AR: Yule–Walker directly (the second stage would only repeat the regression).
     const x = stage1 ? stage1.x : zeroFilled(u);
-    const gamma = sampleAutocovariance(x, Math.min(n - 1, p), false);
+    const lags = Math.min(n - 1, p);
+    const gamma = sampleAutocovariance(x, lags, false, scratchBlock([lags + 1])[0]);
     if (!(gamma[0] > 0)) return null;
     const phi = yuleWalker(gamma, p);
     return { ar: numberArray(phi), ma: [] };

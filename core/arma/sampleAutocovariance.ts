@@ -1,9 +1,15 @@
 /**
  * Sample autocovariances c_k = (1/n) Σ_{t=k+1..n} (x_t − x̄)(x_{t−k} − x̄), k = 0..maxLag, the
  * usual biased estimator (Box & Jenkins 1976, §2.1.4), over observed points only (NaN = missing;
- * pairs with a missing member are skipped, n counts the observed points).
+ * pairs with a missing member are skipped, n counts the observed points), written into out when given
+ * (at least maxLag + 1 long, zero-filled).
  */
-export function sampleAutocovariance(x: ArrayLike<number>, maxLag: number, demean = true): Float64Array {
+export function sampleAutocovariance(
+  x: ArrayLike<number>,
+  maxLag: number,
+  demean = true,
+  out: Float64Array = new Float64Array(maxLag + 1),
+): Float64Array {
   const n = x.length;
   let sum = 0;
   let count = 0;
@@ -15,7 +21,6 @@ export function sampleAutocovariance(x: ArrayLike<number>, maxLag: number, demea
     }
   }
   const mean = demean && count > 0 ? sum / count : 0;
-  const out = new Float64Array(maxLag + 1);
   if (count === 0) return out;
   if (count === n) {
     // No missing point: the same sums without the tests.

@@ -68,6 +68,16 @@ export function closeScratch(mark: number): void {
   }
 }
 
+/** run() inside its own scratch scope, closed however run() ends. */
+export function withScratch<T>(run: () => T): T {
+  const mark = openScratch();
+  try {
+    return run();
+  } finally {
+    closeScratch(mark);
+  }
+}
+
 export function scratchBlock(lengths: readonly number[]): Float64Array[] {
   if (scratchDepth === 0) return float64Block(lengths);
   let total = 0;

@@ -1,3 +1,4 @@
+import { scratchBlock, withScratch } from '../arma/typedArrays';
 import type { Flag } from '../plan/types';
 import { polynomialRootModuli } from '../select/engine';
 import { type ChoiceForecast, forecastChoice } from '../select/forecastChoice';
@@ -48,15 +49,26 @@ export const SHORT_HISTORY_WEEKS = 52;
  * and the naive forecast are the same model up to a drift, and should not flag by chance. */
 export const LOSES_TO_NAIVE = 1.1;
 
+export interface DiagnoseOptions {
+  horizon?: number;
+  y?: ArrayLike<number>;
+  /** The choice's forecast over at least `horizon` weeks when the caller has it already. */
+  forecast?: ChoiceForecast;
+}
+
 export function diagnoseChoice(
   choice: ModelChoice,
   weekStart: readonly string[],
-  options: {
-    horizon?: number;
-    y?: ArrayLike<number>;
-    /** The choice's forecast over at least `horizon` weeks when the caller has it already. */
-    forecast?: ChoiceForecast;
-  } = {},
+  options: DiagnoseOptions = {},
+): { diagnostics: Diagnostics; flags: Flag[] } {
+  // The standardised errors and the tests' copies are scratch: the record holds plain numbers only.
+  return withScratch(() => diagnoseScratched(choice, weekStart, options));
+}
+
+function diagnoseScratched(
+  choice: ModelChoice,
+  weekStart: readonly string[],
+  options: DiagnoseOptions,
 ): { diagnostics: Diagnostics; flags: Flag[] } {
   // One function per check, each pushing its flags; the order of the calls is the order of the flags.
   const flags: Flag[] = [];
@@ -107,7 +119,8 @@ export function diagnoseChoice(
 function standardizedErrors(choice: ModelChoice): Float64Array {
   const fit = choice.fit;
   const n = choice.residuals.length;
-  const z = new Float64Array(n).fill(Number.NaN);
+  const [z] = scratchBlock([n]);
+  z.fill(Number.NaN);
   if (choice.kind === 'arma' && fit) {
     const sz = fit.standardizedResiduals;
     const off = n - sz.length;

@@ -1,3 +1,4 @@
+import { scratchBlock } from '../arma/typedArrays';
 import { chiSquareUpperTail } from './chiSquare';
 
 /**
@@ -34,7 +35,8 @@ export function ljungBox(residuals: ArrayLike<number>, lags: number, fittedParam
   const df = Math.max(1, h - fittedParams);
   if (n < 3) return { statistic: 0, lags: h, df, pValue: 1, n };
   const mean = sum / n;
-  const e = new Float64Array(n);
+  // Scratch inside a scope (diagnoseChoice); a plain array outside one.
+  const [e] = scratchBlock([n]);
   let j = 0;
   for (let i = 0; i < residuals.length; i++) if (Number.isFinite(residuals[i])) e[j++] = residuals[i] - mean;
   let c0 = 0;

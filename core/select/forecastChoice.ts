@@ -25,28 +25,29 @@ export interface ChoiceForecast {
 
 export function forecastChoice(choice: ModelChoice, horizon: number): ChoiceForecast {
   const h = Math.max(0, Math.floor(horizon));
-  const [mean, se] = float64Block([h, h]);
   if (choice.kind === 'intermittent' && choice.intermittent) {
     const s = choice.intermittent;
+    const [mean, se] = float64Block([h, h]);
     mean.fill(s.forecast);
     se.fill(Math.sqrt(s.errorVariance));
     return { mean, se };
   }
   if (choice.fit) {
     try {
+      // The model's own rows, widened in place (forecastArma returns fresh arrays).
       const f = forecastArma(choice.fit, h, futureXregOf(choice, h));
       const widen = Math.sqrt(estimationAllowance(choice));
       let ok = true;
       for (let i = 0; i < h; i++) {
-        mean[i] = f.mean[i];
-        se[i] = f.se[i] * widen;
-        if (!Number.isFinite(mean[i]) || !Number.isFinite(se[i])) ok = false;
+        f.se[i] *= widen;
+        if (!Number.isFinite(f.mean[i]) || !Number.isFinite(f.se[i])) ok = false;
       }
-      if (ok) return { mean, se };
+      if (ok) return { mean: f.mean, se: f.se };
     } catch {
       // fall through to the level below
     }
   }
+  const [mean, se] = float64Block([h, h]);
   const level = choice.fallbackLevel ?? levelOf(choice);
   mean.fill(level.value);
   se.fill(level.sd);
