@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readWeeklyCsv } from '../../app/cli/fit-csv';
 import { simulateArma } from '../../core/arma';
+import { cliCommand } from '../bench/cliCommand';
 
 const root = join(import.meta.dirname, '..', '..');
 let dir = '';
@@ -23,7 +24,8 @@ function csv(values: (number | null)[], header = 'week,qty', start = Date.UTC(20
 }
 
 function runFit(args: string[]): { status: number | null; stdout: string; stderr: string } {
-  const r = spawnSync(process.execPath, ['--import', 'tsx', join(root, 'app/cli/main.ts'), 'fit', ...args], {
+  const [cmd, ...cli] = cliCommand();
+  const r = spawnSync(cmd, [...cli, 'fit', ...args], {
     cwd: root,
     encoding: 'utf8',
   });
