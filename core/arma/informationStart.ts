@@ -20,6 +20,26 @@ import { psiWeights } from './psi';
 import { scratchBlock } from './typedArrays';
 
 const M = 400;
+/** Below this a ψ-weight (ψ_0 = 1) no longer moves a sum of at least 1 in double precision: 2^−60. */
+const NEGLIGIBLE = 2 ** -60;
+
+/**
+ * ψ-weights of 1/c(B) into out (M + m long, zero-filled) and the number of terms the sums need:
+ * 64, 128, 256 or M — the first length whose last max(1, degree) weights are all negligible (from
+ * there on the weights of a stationary polynomial stay negligible; the rest of out stays zero).
+ * Most starts have roots well outside the unit circle, whose weights die out long before M.
+ */
+function significantWeights(coef: Float64Array, m: number, out: Float64Array): number {
+  const k = Math.max(coef.length, 1);
+  for (let terms = 64; terms < M; terms *= 2) {
+    psiWeights(coef, [], terms + m, 0, out);
+    let negligible = true;
+    for (let i = terms + m - k; i < terms + m; i++) if (Math.abs(out[i]) > NEGLIGIBLE) negligible = false;
+    if (negligible) return terms;
+  }
+  psiWeights(coef, [], M + m, 0, out);
+  return M;
+}
 
 /**
  * Writes the inverse of Jᵀ I J at u (p AR then q MA coordinates) into out (m × m, row-major,
@@ -35,14 +55,13 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
   const ma = new Float64Array(q);
   unconstrainedToCoefficients(u, 0, p, ar, 0, work);
   unconstrainedToCoefficients(u, p, q, ma, 0, work);
-  // ψ-weights of 1/φ(B) and of 1/θ(B) (θ(B) has the AR polynomial's form).
+  // ψ-weights of 1/φ(B) and of 1/θ(B) (θ(B) has the AR polynomial's form), as many as matter.
   const [alpha, beta] = scratchBlock([M + m, M + m]);
-  psiWeights(ar, [], M + m, 0, alpha);
-  psiWeights(ma, [], M + m, 0, beta);
+  const terms = Math.max(significantWeights(ar, m, alpha), significantWeights(ma, m, beta));
   const cross = (a: Float64Array, b: Float64Array, lag: number): number => {
     // Σ_m a_m b_{m+lag} for lag ≥ 0.
     let s = 0;
-    for (let i = 0; i < M; i++) s += a[i] * b[i + lag];
+    for (let i = 0; i < terms; i++) s += a[i] * b[i + lag];
     return s;
   };
   const info = new Float64Array(m * m);
