@@ -10,7 +10,10 @@ import { solveNormalEquations } from './leastSquares';
 import { sampleAutocovariance } from './sampleAutocovariance';
 import { numberArray, scratchBlock } from './typedArrays';
 
-/** Yule–Walker AR(m) coefficients by the Durbin–Levinson recursion (Durbin 1960). */
+/**
+ * Yule–Walker AR(m) coefficients by the Durbin–Levinson recursion (Durbin 1960). Inside a scratch
+ * scope (typedArrays.ts) the result is scratch: copy it to keep it past the scope.
+ */
 export function yuleWalker(gamma: Float64Array, m: number): Float64Array {
   const [phi, prev] = scratchBlock([m, m]);
   let v = gamma[0];
@@ -45,7 +48,7 @@ function zeroFilled(u: Float64Array): Float64Array {
   return x;
 }
 
-/** Stage 1 for ARMA(p, q): null when the series is too short or has no variance. */
+/** Stage 1 for ARMA(p, q): null when the series is too short or has no variance; scratch, as yuleWalker's. */
 export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage1 | null {
   const n = u.length;
   const m = longArOrder(n, p, q);

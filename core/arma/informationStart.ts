@@ -9,9 +9,10 @@
  * 1/θ(B):
  *   I_φφ[i][k] = Σ_m α_m α_{m+|i−k|},  I_θθ[j][l] = Σ_m β_m β_{m+|j−l|},
  *   I_φθ[i][j] = −Σ_m α_m β_{m+i−j} (terms with a negative index are zero).
- * The sums run to M = 400 terms: for roots of modulus 1.02 or more (a single coefficient with
- * |π| ≤ 0.98, as every start has) the cut-off tail is below 1e-6 of the sum; nearer the unit circle
- * the start is a rougher curvature, which BFGS corrects as it goes.
+ * The sums run to at most M = 400 terms: for roots of modulus 1.02 or more (a single coefficient
+ * with |π| ≤ 0.98, as every start has) the cut-off tail is below 1e-6 of the sum; nearer the unit
+ * circle the start is a rougher curvature, which BFGS corrects as it goes. They stop earlier, at
+ * 64, 128 or 256 terms, once the weights have died out below 2^−60 (significantWeights).
  */
 
 import { choleskyFactor, inverseFromCholesky } from './leastSquares';
