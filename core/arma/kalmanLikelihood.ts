@@ -108,13 +108,26 @@ export class ArmaLikelihood {
     const n = this.n;
     let missing = 0;
     for (let t = 0; t < n; t++) if (Number.isNaN(w[t])) missing = 8 * n;
-    // Scratch inside a fit's scope (fitArma), where the likelihood dies with the fit.
-    const [F, k1, k2, vy, vx, missingRecord, end] = scratchBlock([n, n, n, n, n, missing, 12]);
+    // Scratch inside a fit's scope (fitArma), where the likelihood dies with the fit. A pass
+    // switches at most once per week: n + 1 entries hold every switch step.
+    const [F, k1, k2, vy, vx, missingRecord, end, switchLog, frozenLog] = scratchBlock([
+      n,
+      n,
+      n,
+      n,
+      n,
+      missing,
+      12,
+      n + 1,
+      n + 1,
+    ]);
     this.trace = { F, k1, k2, vy, vx, missing: missingRecord, end };
+    this.switchLog = switchLog;
+    this.frozenLog = frozenLog;
   }
 
   /** The switch steps of the last pass (the starts of its steady-state stretches). */
-  get switches(): Int32Array {
+  get switches(): Float64Array {
     return this.switchLog.subarray(0, this.switchCount);
   }
 
@@ -195,15 +208,14 @@ export class ArmaLikelihood {
    * finite-difference stencil of a gradient or Hessian sees one smooth function rather than one
    * with small jumps where a switch step moves; disableSteadyState() never switches (exact likelihood).
    */
-  private switchLog: Int32Array = new Int32Array(0);
+  private switchLog: Float64Array;
   private switchCount = 0;
-  private frozenLog: Int32Array = new Int32Array(0);
+  private frozenLog: Float64Array;
   private frozenCount = 0;
   /** 0: switch on the trace test; 1: replay the frozen steps; 2: never switch. */
   private switchMode = 0;
 
   freezeSwitches(): void {
-    if (this.frozenLog.length < this.switchCount) this.frozenLog = new Int32Array(this.switchLog.length);
     this.frozenLog.set(this.switchLog.subarray(0, this.switchCount));
     this.frozenCount = this.switchCount;
     this.switchMode = 1;
@@ -245,7 +257,6 @@ export class ArmaLikelihood {
     let nobs = 0;
     const w = cols[0];
     const mode = this.switchMode;
-    if (this.switchLog.length < n + 1) this.switchLog = new Int32Array(n + 1);
     const log = this.switchLog;
     const frozen = this.frozenLog;
     const frozenCount = this.frozenCount;
@@ -384,7 +395,6 @@ export class ArmaLikelihood {
     const tvx = this.trace.vx;
     const tm = this.trace.missing;
     const mode = this.switchMode;
-    if (this.switchLog.length < n + 1) this.switchLog = new Int32Array(n + 1);
     const frozen = this.frozenLog;
     const frozenCount = this.frozenCount;
     let switches = 0;

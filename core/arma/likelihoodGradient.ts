@@ -16,6 +16,7 @@
  */
 import type { ArmaLikelihood } from './kalmanLikelihood';
 import { solveCompanionLyapunovAdjoint } from './stationaryCovariance';
+import { scratchBlock } from './typedArrays';
 
 export interface FilterTrace {
   F: Float64Array;
@@ -31,7 +32,8 @@ export interface FilterTrace {
 
 /** Scratch for one likelihood's gradients (allocated once per likelihood). */
 export interface GradientWorkspace {
-  kind: Int8Array;
+  /** The kind of each week (MISSING, FULL, STEADY, MISSING_RESET below). */
+  kind: Float64Array;
   /** The adjoint of P₀ as a symmetric matrix, and the solution of the adjoint Lyapunov equation. */
   G: Float64Array;
   S: Float64Array;
@@ -39,7 +41,8 @@ export interface GradientWorkspace {
 
 export function createGradientWorkspace(n: number, r: number): GradientWorkspace {
   return {
-    kind: new Int8Array(n),
+    // Scratch inside a fit's scope, like the likelihood it belongs to.
+    kind: scratchBlock([n])[0],
     G: new Float64Array(r * r),
     S: new Float64Array(r * r),
   };
