@@ -28,17 +28,20 @@ const NEGLIGIBLE = 2 ** -60;
  * ψ-weights of 1/c(B) into out (M + m long, zero-filled) and the number of terms the sums need:
  * 64, 128, 256 or M — the first length whose last max(1, degree) weights are all negligible (from
  * there on the weights of a stationary polynomial stay negligible; the rest of out stays zero).
- * Most starts have roots well outside the unit circle, whose weights die out long before M.
+ * Each longer try continues the sequence. Most starts have roots well outside the unit circle,
+ * whose weights die out long before M.
  */
 function significantWeights(coef: Float64Array, m: number, out: Float64Array): number {
   const k = Math.max(coef.length, 1);
+  let done = 0;
   for (let terms = 64; terms < M; terms *= 2) {
-    psiWeights(coef, [], terms + m, 0, out);
+    psiWeights(coef, [], terms + m, 0, out, done);
+    done = terms + m;
     let negligible = true;
-    for (let i = terms + m - k; i < terms + m; i++) if (Math.abs(out[i]) > NEGLIGIBLE) negligible = false;
+    for (let i = done - k; i < done; i++) if (Math.abs(out[i]) > NEGLIGIBLE) negligible = false;
     if (negligible) return terms;
   }
-  psiWeights(coef, [], M + m, 0, out);
+  psiWeights(coef, [], M + m, 0, out, done);
   return M;
 }
 

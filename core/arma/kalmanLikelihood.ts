@@ -108,9 +108,10 @@ export class ArmaLikelihood {
     const n = this.n;
     let missing = 0;
     for (let t = 0; t < n; t++) if (Number.isNaN(w[t])) missing = 8 * n;
-    // Scratch inside a fit's scope (fitArma), where the likelihood dies with the fit. A pass
+    // Scratch inside a fit's scope (fitArma), where the likelihood dies with the fit; everything the
+    // likelihood keeps is taken here, so it all lives exactly as long as the likelihood. A pass
     // switches at most once per week: n + 1 entries hold every switch step.
-    const [F, k1, k2, vy, vx, missingRecord, end, switchLog, frozenLog] = scratchBlock([
+    const [F, k1, k2, vy, vx, missingRecord, end, switchLog, frozenLog, weekKinds] = scratchBlock([
       n,
       n,
       n,
@@ -120,10 +121,12 @@ export class ArmaLikelihood {
       12,
       n + 1,
       n + 1,
+      n,
     ]);
     this.trace = { F, k1, k2, vy, vx, missing: missingRecord, end };
     this.switchLog = switchLog;
     this.frozenLog = frozenLog;
+    this.weekKinds = weekKinds;
   }
 
   /** The switch steps of the last pass (the starts of its steady-state stretches). */
@@ -150,6 +153,8 @@ export class ArmaLikelihood {
   }
 
   private gradientWs: GradientWorkspace | null = null;
+  /** The gradient's kind of each week (likelihoodGradient.ts), allocated with the record. */
+  private readonly weekKinds: Float64Array;
 
   /**
    * ∂/∂φ and ∂/∂θ of profile() at the parameters of the last profile() call, which must be the
@@ -157,7 +162,7 @@ export class ArmaLikelihood {
    */
   gradient(gAr: Float64Array, gMa: Float64Array): boolean {
     if (!this.hasGradient) return false;
-    this.gradientWs ??= createGradientWorkspace(this.n, this.r);
+    this.gradientWs ??= createGradientWorkspace(this.weekKinds, this.r);
     this.gradients++;
     return likelihoodGradient(this, this.gradientWs, gAr, gMa);
   }

@@ -16,7 +16,6 @@
  */
 import type { ArmaLikelihood } from './kalmanLikelihood';
 import { solveCompanionLyapunovAdjoint } from './stationaryCovariance';
-import { scratchBlock } from './typedArrays';
 
 export interface FilterTrace {
   F: Float64Array;
@@ -39,10 +38,10 @@ export interface GradientWorkspace {
   S: Float64Array;
 }
 
-export function createGradientWorkspace(n: number, r: number): GradientWorkspace {
+/** kind: n entries owned by the likelihood (allocated with its record). */
+export function createGradientWorkspace(kind: Float64Array, r: number): GradientWorkspace {
   return {
-    // Scratch inside a fit's scope, like the likelihood it belongs to.
-    kind: scratchBlock([n])[0],
+    kind,
     G: new Float64Array(r * r),
     S: new Float64Array(r * r),
   };

@@ -12,9 +12,11 @@ export function psiWeights(
   d = 0,
   /** Where to write them (at least n long); a new array by default. */
   psi: Float64Array = new Float64Array(Math.max(n, 0)),
+  /** Continue a sequence: psi[0…from) already holds these weights. */
+  from = 0,
 ): Float64Array {
   const phi = integratedAr(ar, d);
-  for (let j = 0; j < n; j++) {
+  for (let j = from; j < n; j++) {
     let v = j === 0 ? 1 : j <= ma.length ? -ma[j - 1] : 0;
     const top = Math.min(j, phi.length);
     for (let i = 1; i <= top; i++) v += phi[i - 1] * psi[j - i];

@@ -43,7 +43,7 @@ export function numberArray(src: ArrayLike<number>, from = 0): number[] {
  * Scratch space: zero-filled Float64Arrays carved out of one reused ArrayBuffer, for the
  * temporaries of a computation bracketed by openScratch()/closeScratch(). A view of an existing
  * buffer costs a tenth of a fresh block (see float64Block above), and a fit of one ARMA(1,1)
- * series took 18 fresh ones. Scopes nest like a stack: closeScratch(mark) frees everything taken
+ * series took 21 fresh ones. Scopes nest like a stack: closeScratch(mark) frees everything taken
  * since the openScratch() that returned mark, so an array from scratchBlock() must not be used
  * after the innermost scope open at the time it was taken has closed — only temporaries that die
  * with that scope come from here, never a result handed to the caller of the scope's owner.

@@ -22,6 +22,13 @@ describe('ψ-weights', () => {
   it('(1 − 0.5B)(1 − B) = 1 − 1.5B + 0.5B², so φ* = [1.5, −0.5] (polynomial product)', () => {
     expect(Array.from(integratedAr([0.5], 1))).toEqual([1.5, -0.5]);
   });
+  it('continuing from index k gives the same weights as one pass (the recursion reads only earlier ones)', () => {
+    const whole = psiWeights([1.2, -0.5], [0.3], 40, 1);
+    const part = new Float64Array(40);
+    psiWeights([1.2, -0.5], [0.3], 17, 1, part);
+    psiWeights([1.2, -0.5], [0.3], 40, 1, part, 17);
+    expect(Array.from(part)).toEqual(Array.from(whole));
+  });
 });
 
 describe('variance of a sum of forecast errors', () => {
