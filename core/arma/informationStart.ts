@@ -12,7 +12,8 @@
  * The sums run to at most M = 400 terms: for roots of modulus 1.02 or more (a single coefficient
  * with |π| ≤ 0.98, as every start has) the cut-off tail is below 1e-6 of the sum; nearer the unit
  * circle the start is a rougher curvature, which BFGS corrects as it goes. They stop earlier, at
- * 64, 128 or 256 terms, once the weights have died out below 2^−60 (significantWeights).
+ * 64, 128 or 256 terms, once the weights have died out below 2^−60 (significantWeights). For
+ * p, q ≤ 1 the sums are geometric series, summed in closed form (firstOrderInformation).
  */
 
 import { choleskyFactor, inverseFromCholesky } from './leastSquares';
@@ -59,35 +60,9 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
   const ma = new Float64Array(q);
   unconstrainedToCoefficients(u, 0, p, ar, 0, work);
   unconstrainedToCoefficients(u, p, q, ma, 0, work);
-  // ψ-weights of 1/φ(B) and of 1/θ(B) (θ(B) has the AR polynomial's form), as many as matter.
-  const [alpha, beta] = scratchBlock([M + m, M + m]);
-  const terms = Math.max(significantWeights(ar, m, alpha), significantWeights(ma, m, beta));
-  const cross = (a: Float64Array, b: Float64Array, lag: number): number => {
-    // Σ_m a_m b_{m+lag} for lag ≥ 0.
-    let s = 0;
-    for (let i = 0; i < terms; i++) s += a[i] * b[i + lag];
-    return s;
-  };
   const info = new Float64Array(m * m);
-  // The two diagonal blocks: autocovariances of x (offset 0, size p) and of w (offset p, size q).
-  for (const [offset, size, w] of [
-    [0, p, alpha],
-    [p, q, beta],
-  ] as const) {
-    // Toeplitz: one sum per lag.
-    const byLag = new Float64Array(size);
-    for (let lag = 0; lag < size; lag++) byLag[lag] = cross(w, w, lag);
-    for (let i = 0; i < size; i++)
-      for (let j = 0; j < size; j++) info[(offset + i) * m + offset + j] = byLag[Math.abs(i - j)];
-  }
-  for (let i = 0; i < p; i++) {
-    for (let j = 0; j < q; j++) {
-      // −E[x_{t−1−i} w_{t−1−j}] / σ²: Σ α_s β_{s+i−j} for i ≥ j, Σ β_s α_{s+j−i} otherwise.
-      const v = -(i >= j ? cross(alpha, beta, i - j) : cross(beta, alpha, j - i));
-      info[i * m + p + j] = v;
-      info[(p + j) * m + i] = v;
-    }
-  }
+  if (p <= 1 && q <= 1) firstOrderInformation(ar, ma, info);
+  else generalInformation(p, q, ar, ma, info);
   // J is block diagonal: the AR block and the MA block of the partial-autocorrelation map.
   const J = new Float64Array(m * m);
   const block = new Float64Array(k * k);
@@ -122,4 +97,58 @@ export function inverseInformationStart(p: number, q: number, u: Float64Array, o
   inverseFromCholesky(L, m, out);
   for (let i = 0; i < m * m; i++) if (!Number.isFinite(out[i])) return false;
   return true;
+}
+
+/**
+ * I for p, q ≤ 1 in closed form (the sums of geometric series): with α_m = φ^m and β_m = θ^m,
+ * I_φφ = 1/(1 − φ²), I_θθ = 1/(1 − θ²), I_φθ = −1/(1 − φθ).
+ */
+function firstOrderInformation(ar: Float64Array, ma: Float64Array, info: Float64Array): void {
+  const m = ar.length + ma.length;
+  const phi = ar.length ? ar[0] : 0;
+  const theta = ma.length ? ma[0] : 0;
+  if (ar.length) info[0] = 1 / (1 - phi * phi);
+  if (ma.length) info[m * m - 1] = 1 / (1 - theta * theta);
+  if (m === 2) {
+    info[1] = -1 / (1 - phi * theta);
+    info[2] = info[1];
+  }
+}
+
+/** I from the ψ-weights of 1/φ(B) and of 1/θ(B) (θ(B) has the AR polynomial's form). */
+function generalInformation(
+  p: number,
+  q: number,
+  ar: Float64Array,
+  ma: Float64Array,
+  info: Float64Array,
+): void {
+  const m = p + q;
+  const [alpha, beta] = scratchBlock([M + m, M + m]);
+  const terms = Math.max(significantWeights(ar, m, alpha), significantWeights(ma, m, beta));
+  const cross = (a: Float64Array, b: Float64Array, lag: number): number => {
+    // Σ_m a_m b_{m+lag} for lag ≥ 0.
+    let s = 0;
+    for (let i = 0; i < terms; i++) s += a[i] * b[i + lag];
+    return s;
+  };
+  // The two diagonal blocks: autocovariances of x (offset 0, size p) and of w (offset p, size q).
+  for (const [offset, size, w] of [
+    [0, p, alpha],
+    [p, q, beta],
+  ] as const) {
+    // Toeplitz: one sum per lag.
+    const byLag = new Float64Array(size);
+    for (let lag = 0; lag < size; lag++) byLag[lag] = cross(w, w, lag);
+    for (let i = 0; i < size; i++)
+      for (let j = 0; j < size; j++) info[(offset + i) * m + offset + j] = byLag[Math.abs(i - j)];
+  }
+  for (let i = 0; i < p; i++) {
+    for (let j = 0; j < q; j++) {
+      // −E[x_{t−1−i} w_{t−1−j}] / σ²: Σ α_s β_{s+i−j} for i ≥ j, Σ β_s α_{s+j−i} otherwise.
+      const v = -(i >= j ? cross(alpha, beta, i - j) : cross(beta, alpha, j - i));
+      info[i * m + p + j] = v;
+      info[(p + j) * m + i] = v;
+    }
+  }
 }
