@@ -15,30 +15,15 @@ import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { createRng, fitArma, simulateArma } from '../../core/arma';
+import { fitArma } from '../../core/arma';
 import { ArmaLikelihood } from '../../core/arma/kalmanLikelihood';
-import { unconstrainedToCoefficients } from '../../core/arma/partialAutocorrelations';
 import { cliCommand } from './cliCommand';
+import { BENCH_WEEKS, simulatedSeries } from './simulatedSeries';
 
 const root = join(import.meta.dirname, '..', '..');
 const FILES = Number(process.env.FIT_BENCH_FILES ?? 1000);
-const WEEKS = 156;
+const WEEKS = BENCH_WEEKS;
 const REPEATS = Number(process.env.FIT_BENCH_REPEATS ?? 5);
-
-/** A random stationary, invertible model: partial autocorrelations uniform on (−0.8, 0.8). */
-function randomModel(
-  p: number,
-  q: number,
-  rng: ReturnType<typeof createRng>,
-): { ar: number[]; ma: number[] } {
-  const draw = (k: number): number[] => {
-    const u = Array.from({ length: k }, () => Math.atanh(1.6 * (rng.uniform() - 0.5)));
-    const out = new Float64Array(k);
-    unconstrainedToCoefficients(u, 0, k, out, 0, new Float64Array(Math.max(k, 1)));
-    return Array.from(out);
-  };
-  return { ar: draw(p), ma: draw(q) };
-}
 
 function writeSeries(
   dir: string,
@@ -46,23 +31,18 @@ function writeSeries(
   q: number,
   seed: number,
 ): { files: string[]; series: Float64Array[] } {
-  const rng = createRng(seed);
-  const files: string[] = [];
-  const series: Float64Array[] = [];
+  const series = simulatedSeries(p, q, seed, FILES);
   const start = Date.UTC(2022, 0, 3);
   const weeks = Array.from({ length: WEEKS }, (_, i) =>
     new Date(start + i * 7 * 86400000).toISOString().slice(0, 10),
   );
-  for (let i = 0; i < FILES; i++) {
-    const model = randomModel(p, q, rng);
-    const y = simulateArma({ ...model, sigma2: 100, mean: 200 }, WEEKS, rng);
+  const files = series.map((y, i) => {
     const lines = ['week,qty'];
     for (let t = 0; t < WEEKS; t++) lines.push(`${weeks[t]},${y[t].toFixed(2)}`);
-    series.push(Float64Array.from(y, (v) => Number(v.toFixed(2))));
     const file = join(dir, `s${String(i).padStart(4, '0')}.csv`);
     writeFileSync(file, `${lines.join('\n')}\n`);
-    files.push(file);
-  }
+    return file;
+  });
   return { files, series };
 }
 

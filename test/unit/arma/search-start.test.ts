@@ -4,8 +4,9 @@
  * Check values: the definitions. The expected Hessian of the concentrated objective
  * ½ log σ̂² + ½ Σ log F / n is the information per observation (Box, Jenkins & Reinsel, ch. 7), so on
  * a long simulated series the numerical Hessian at the true parameters must approach the inverse of
- * what the start gives; for ARMA(1,1) the information has the closed form
- * [[1/(1−φ²), −1/(1−φθ)], [−1/(1−φθ), 1/(1−θ²)]]; and BFGS started with the exact inverse Hessian
+ * what the start gives (orders with p or q = 2 take the ψ-weight sums, p, q ≤ 1 the closed form);
+ * for ARMA(1,1) the information is [[1/(1−φ²), −1/(1−φθ)], [−1/(1−φθ), 1/(1−θ²)]], and the start
+ * must be the inverse of Jᵀ I J with J = diag(1 − π²); and BFGS started with the exact inverse Hessian
  * of a quadratic takes one Newton step to its minimum.
  */
 import { describe, expect, it } from 'vitest';
