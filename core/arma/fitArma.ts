@@ -19,6 +19,18 @@ import { searchOptimum } from './searchOptimum';
 import { float64Block, numberArray, scratchBlock, withScratch } from './typedArrays';
 import type { ArmaFit, ArmaFitOptions } from './types';
 
+/** The δ tried, in turn, when the search's optimum has no exact likelihood (see fitScratched). */
+const EDGE_STEPS = [1e-8, 1e-6, 1e-4, 1e-2];
+
+/** The coefficients of 1 − Σ c_i ((1 − δ) z)^i: the same polynomial with roots 1/(1 − δ) farther out. */
+function rootsMovedOutward(coef: number[], delta: number): number[] {
+  let f = 1;
+  return coef.map((c) => {
+    f *= 1 - delta;
+    return c * f;
+  });
+}
+
 const MAX_P = 5;
 const MAX_Q = 5;
 const MAX_D = 2;
@@ -293,11 +305,21 @@ function fitScratched(y: ArrayLike<number>, opts: ArmaFitOptions): ArmaFit {
   }
   const lik = search.lik;
   const best = search;
-  const arHat = search.ar;
-  const maHat = search.ma;
+  let arHat = search.ar;
+  let maHat = search.ma;
   // The reported likelihood, β̂ and the filter's outputs from one exact pass (no steady-state
   // shortcut), taken before the Hessian's passes.
-  const exact = lik.exactFit(arHat, maHat);
+  let exact = lik.exactFit(arHat, maHat);
+  // A search that ends on the edge of the region (an AR root on the unit circle, where the mean is
+  // no longer identified, or an MA one) can leave the exact pass without a finite likelihood where
+  // its own passes had one: move every root outward by the factor 1/(1 − δ), c_i → c_i (1 − δ)^i,
+  // for the smallest δ that gives one.
+  for (const delta of EDGE_STEPS) {
+    if (exact) break;
+    arHat = rootsMovedOutward(search.ar, delta);
+    maHat = rootsMovedOutward(search.ma, delta);
+    exact = lik.exactFit(arHat, maHat);
+  }
   if (!exact) {
     flags.push('filter-failed');
     return fallbackFit(prep, opts, includeMean, flags);

@@ -60,9 +60,16 @@ export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage
   if (!(gamma[0] > 0)) return null;
   const longAr = yuleWalker(gamma, m);
   for (let t = m; t < n; t++) {
-    let s = x[t];
-    for (let j = 0; j < m; j++) s -= longAr[j] * x[t - 1 - j];
-    e[t] = s;
+    // Two interleaved partial sums (two independent additions in flight).
+    let s0 = x[t];
+    let s1 = 0;
+    let j = 0;
+    for (; j + 1 < m; j += 2) {
+      s0 -= longAr[j] * x[t - 1 - j];
+      s1 -= longAr[j + 1] * x[t - 2 - j];
+    }
+    if (j < m) s0 -= longAr[j] * x[t - 1 - j];
+    e[t] = s0 + s1;
   }
   return { m, x, e };
 }

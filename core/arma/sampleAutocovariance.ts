@@ -23,11 +23,22 @@ export function sampleAutocovariance(
   const mean = demean && count > 0 ? sum / count : 0;
   if (count === 0) return out;
   if (count === n) {
-    // No missing point: the same sums without the tests.
+    // No missing point: the same sums without the tests, in four interleaved partial sums (four
+    // independent additions in flight instead of one chain).
     for (let k = 0; k <= maxLag; k++) {
-      let s = 0;
-      for (let t = k; t < n; t++) s += (x[t] - mean) * (x[t - k] - mean);
-      out[k] = s / count;
+      let s0 = 0;
+      let s1 = 0;
+      let s2 = 0;
+      let s3 = 0;
+      let t = k;
+      for (; t + 3 < n; t += 4) {
+        s0 += (x[t] - mean) * (x[t - k] - mean);
+        s1 += (x[t + 1] - mean) * (x[t + 1 - k] - mean);
+        s2 += (x[t + 2] - mean) * (x[t + 2 - k] - mean);
+        s3 += (x[t + 3] - mean) * (x[t + 3 - k] - mean);
+      }
+      for (; t < n; t++) s0 += (x[t] - mean) * (x[t - k] - mean);
+      out[k] = (s0 + s1 + (s2 + s3)) / count;
     }
     return out;
   }
