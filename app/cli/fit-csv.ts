@@ -29,6 +29,8 @@ const ISO_WEEK = /^(\d{4})-?W(\d{2})$/;
 const POW10 = Array.from({ length: 16 }, (_, k) => 10 ** k);
 const DAYS_IN_MONTH = [0, 31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
+/** readFileSync's options as an object: a string is first copied into one on every call. */
+const UTF8 = { encoding: 'utf8' } as const;
 const DASH = 45;
 const DOT = 46;
 const CR = 13;
@@ -193,7 +195,7 @@ class WeeklyBuilder {
 export function readWeeklyCsv(file: string, opts: WeeklyCsvOptions): WeeklySeries {
   let text: string;
   try {
-    text = readFileSync(file, 'utf8');
+    text = readFileSync(file, UTF8);
   } catch (err) {
     const code = (err as NodeJS.ErrnoException).code;
     throw new CsvInputError(

@@ -44,9 +44,16 @@ export function ljungBox(residuals: ArrayLike<number>, lags: number, fittedParam
   if (!(c0 > 0)) return { statistic: 0, lags: h, df, pValue: 1, n };
   let q = 0;
   for (let k = 1; k <= h; k++) {
-    let ck = 0;
-    for (let t = k; t < n; t++) ck += e[t] * e[t - k];
-    const r = ck / c0;
+    // Two interleaved partial sums (two independent additions in flight).
+    let c1 = 0;
+    let c2 = 0;
+    let t = k;
+    for (; t + 1 < n; t += 2) {
+      c1 += e[t] * e[t - k];
+      c2 += e[t + 1] * e[t + 1 - k];
+    }
+    if (t < n) c1 += e[t] * e[t - k];
+    const r = (c1 + c2) / c0;
     q += (r * r) / (n - k);
   }
   q *= n * (n + 2);
