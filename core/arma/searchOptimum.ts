@@ -122,8 +122,9 @@ function basicStarts(
   // bench's kind, seeds 11, 33, 44, 55) this ended below base R's optimum (by more than 1e-6) on
   // 0, 1, 1 and 1 series, where the previous pair of starts (Hannan–Rissanen and the pure-AR
   // corner, always) did on 0, 2, 1 and 0; passes per fit 20.1–21.1 (were 24.8–25.8), gradients
-  // 10.5–11.6 (were 14.2–15.2). Of the misses of the Hannan–Rissanen run alone, 88–100% ended
-  // within 0.2 of φ = θ. Without a Hannan–Rissanen start, the pure-AR corner and zero run.
+  // 10.5–11.6 (were 14.2–15.2). Of the misses of the Hannan–Rissanen run alone, 86–100% (by seed)
+  // ended within 0.2 of φ = θ. Without a Hannan–Rissanen start, the pure-AR corner and zero run;
+  // where the Hannan–Rissanen run finds no finite optimum, the zero start runs as well.
   const arma11 = p === 1 && q === 1;
   if (quick || !arma11) push(zeroAr, zeroMa);
   if (quick) return { starts, fromHannanRissanen, ifCommonFactor };
@@ -382,12 +383,12 @@ function search(
       best = { x: res.x, value: res.value, converged: res.converged };
     }
   }
-  if (best && ifCommonFactor.length > 0) {
-    toCoefficients(best.x);
-    if (Math.abs(ar[0] - ma[0]) < COMMON_FACTOR_GAP) {
+  if (ifCommonFactor.length > 0) {
+    if (best) toCoefficients(best.x);
+    if (!best || Math.abs(ar[0] - ma[0]) < COMMON_FACTOR_GAP) {
       for (const x of ifCommonFactor) {
         const res = run(x, maxIterations, true);
-        if (Number.isFinite(res.value) && res.value < best.value - 1e-12) {
+        if (Number.isFinite(res.value) && (!best || res.value < best.value - 1e-12)) {
           best = { x: res.x, value: res.value, converged: res.converged };
         }
       }
