@@ -35,6 +35,8 @@ export interface HannanStage1 {
   m: number;
   x: Float64Array;
   e: Float64Array;
+  /** Sample autocovariances of x at lags 0…min(n − 1, m) (the pure-AR start reuses them). */
+  gamma: Float64Array;
 }
 
 function longArOrder(n: number, p: number, q: number): number {
@@ -71,13 +73,13 @@ export function hannanStage1(u: Float64Array, p: number, q: number): HannanStage
     if (j < m) s0 -= longAr[j] * x[t - 1 - j];
     e[t] = s0 + s1;
   }
-  return { m, x, e };
+  return { m, x, e, gamma };
 }
 
 /**
  * Hannan–Rissanen estimates of ARMA(p, q); `stage1` (from hannanStage1 on the same u) is reused
  * when its long-AR order is the one this order needs, so several orders share the first stage
- * (and for a pure AR its zero-filled series).
+ * (and for a pure AR its autocovariances).
  */
 export function hannanRissanen(
   u: Float64Array,
@@ -88,9 +90,10 @@ export function hannanRissanen(
   const n = u.length;
   if (q === 0) {
     // Pure AR: Yule–Walker directly (the second stage would only repeat the regression).
-    const x = stage1 ? stage1.x : zeroFilled(u);
     const lags = Math.min(n - 1, p);
-    const gamma = sampleAutocovariance(x, lags, false, scratchBlock([lags + 1])[0]);
+    const gamma = stage1
+      ? stage1.gamma
+      : sampleAutocovariance(zeroFilled(u), lags, false, scratchBlock([lags + 1])[0]);
     if (!(gamma[0] > 0)) return null;
     const phi = yuleWalker(gamma, p);
     return { ar: numberArray(phi), ma: [] };

@@ -85,15 +85,15 @@ function withFactor(coef: number[], f: number): number[] {
 }
 
 /**
- * The basic starts, which of them (if any) is the Hannan–Rissanen one, and the starts to run only
- * if the best optimum is near a common factor (ARMA(1,1) with |φ − θ| < COMMON_FACTOR_GAP).
+ * The basic starts, which of them (if any) is the Hannan–Rissanen one, and a start to run only if
+ * the best optimum is near a common factor (ARMA(1,1) with |φ − θ| < COMMON_FACTOR_GAP) or none.
  */
 function basicStarts(
   u: Float64Array,
   p: number,
   q: number,
   quick: boolean,
-): { starts: Float64Array[]; fromHannanRissanen: Float64Array | null; ifCommonFactor: Float64Array[] } {
+): { starts: Float64Array[]; fromHannanRissanen: Float64Array | null; ifCommonFactor: Float64Array | null } {
   const starts: Float64Array[] = [];
   const push = (ar: ArrayLike<number>, ma: ArrayLike<number>): void => {
     const x = toUnconstrained(ar, ma);
@@ -115,7 +115,6 @@ function basicStarts(
   const fromHannanRissanen = starts.length > 0 ? starts[0] : null;
   const zeroAr = new Float64Array(p);
   const zeroMa = new Float64Array(q);
-  const ifCommonFactor: Float64Array[] = [];
   // ARMA(1,1), thorough: the Hannan–Rissanen start alone, then the zero start only where that
   // optimum is near a common factor (|φ − θ| < 0.2: the model is then close to white noise, whose
   // likelihood ridge φ = θ separates the modes). On 4 × 1,000 simulated ARMA(1,1) series (the fit
@@ -126,14 +125,12 @@ function basicStarts(
   // ended within 0.2 of φ = θ. Without a Hannan–Rissanen start, the pure-AR corner and zero run;
   // where the Hannan–Rissanen run finds no finite optimum, the zero start runs as well.
   const arma11 = p === 1 && q === 1;
-  if (quick || !arma11) push(zeroAr, zeroMa);
-  if (quick) return { starts, fromHannanRissanen, ifCommonFactor };
-  if (arma11 && fromHannanRissanen) {
-    const x = toUnconstrained(zeroAr, zeroMa);
-    if (x) ifCommonFactor.push(x);
-    return { starts, fromHannanRissanen, ifCommonFactor };
+  if (arma11 && !quick && fromHannanRissanen) {
+    // The zero start (u = 0 is φ = θ = 0), held back for the common-factor test.
+    return { starts, fromHannanRissanen, ifCommonFactor: new Float64Array(2) };
   }
-  if (arma11) push(zeroAr, zeroMa);
+  push(zeroAr, zeroMa);
+  if (quick) return { starts, fromHannanRissanen, ifCommonFactor: null };
   if (p > 0) {
     const yw = hannanRissanen(u, p, 0, stage1);
     if (yw) push(yw.ar, zeroMa);
@@ -145,7 +142,7 @@ function basicStarts(
     const hm = hannanRissanen(u, 0, q, stage1);
     if (hm) push(zeroAr, hm.ma);
   }
-  return { starts, fromHannanRissanen, ifCommonFactor };
+  return { starts, fromHannanRissanen, ifCommonFactor: null };
 }
 
 const PRIMES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29];
@@ -383,15 +380,11 @@ function search(
       best = { x: res.x, value: res.value, converged: res.converged };
     }
   }
-  if (ifCommonFactor.length > 0) {
-    if (best) toCoefficients(best.x);
-    if (!best || Math.abs(ar[0] - ma[0]) < COMMON_FACTOR_GAP) {
-      for (const x of ifCommonFactor) {
-        const res = run(x, maxIterations, true);
-        if (Number.isFinite(res.value) && (!best || res.value < best.value - 1e-12)) {
-          best = { x: res.x, value: res.value, converged: res.converged };
-        }
-      }
+  if (best) toCoefficients(best.x);
+  if (ifCommonFactor && (!best || Math.abs(ar[0] - ma[0]) < COMMON_FACTOR_GAP)) {
+    const res = run(ifCommonFactor, maxIterations, true);
+    if (Number.isFinite(res.value) && (!best || res.value < best.value - 1e-12)) {
+      best = { x: res.x, value: res.value, converged: res.converged };
     }
   }
   if (!best) return null;

@@ -1,3 +1,4 @@
+import { sampleAutocovariance } from '../arma/sampleAutocovariance';
 import { scratchBlock } from '../arma/typedArrays';
 import { chiSquareUpperTail } from './chiSquare';
 
@@ -39,21 +40,12 @@ export function ljungBox(residuals: ArrayLike<number>, lags: number, fittedParam
   const [e] = scratchBlock([n]);
   let j = 0;
   for (let i = 0; i < residuals.length; i++) if (Number.isFinite(residuals[i])) e[j++] = residuals[i] - mean;
-  let c0 = 0;
-  for (let t = 0; t < n; t++) c0 += e[t] * e[t];
+  const c = sampleAutocovariance(e, h, false, scratchBlock([h + 1])[0]);
+  const c0 = c[0];
   if (!(c0 > 0)) return { statistic: 0, lags: h, df, pValue: 1, n };
   let q = 0;
   for (let k = 1; k <= h; k++) {
-    // Two interleaved partial sums (two independent additions in flight).
-    let c1 = 0;
-    let c2 = 0;
-    let t = k;
-    for (; t + 1 < n; t += 2) {
-      c1 += e[t] * e[t - k];
-      c2 += e[t + 1] * e[t + 1 - k];
-    }
-    if (t < n) c1 += e[t] * e[t - k];
-    const r = (c1 + c2) / c0;
+    const r = c[k] / c0;
     q += (r * r) / (n - k);
   }
   q *= n * (n + 2);
